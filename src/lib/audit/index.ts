@@ -1,0 +1,1 @@
+export { recordAudit, type AuditAction, type AuditEntry } from './record';

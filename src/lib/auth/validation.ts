@@ -1,0 +1,36 @@
+import { z } from 'zod';
+import { MIN_PASSWORD_LENGTH } from './auth';
+import { RoleSchema } from './roles';
+
+/** The sign-in form. */
+export const SignInSchema = z.object({
+  email: z.string().trim().toLowerCase().email('Enter the e-mail address of your account.'),
+  password: z.string().min(1, 'Enter your password.'),
+  remember: z.literal('on').optional(),
+});
+
+/** An admin adding a colleague with a temporary password. */
+export const AddMemberSchema = z.object({
+  /** Full name as it appears on calculation sheets. */
+  name: z.string().trim().min(2, 'Enter the full name.').max(120, 'Keep the name under 120 characters.'),
+  /** The colleague's work e-mail; it is their sign-in name. */
+  email: z.string().trim().toLowerCase().email('Enter a valid e-mail address.'),
+  role: RoleSchema,
+  /** Given to the colleague out of band; they should change it after signing in. */
+  temporaryPassword: z
+    .string()
+    .min(MIN_PASSWORD_LENGTH, `The temporary password needs at least ${MIN_PASSWORD_LENGTH} characters.`)
+    .max(128, 'Keep the password under 128 characters.'),
+});
+
+/** An admin changing a member's role. */
+export const ChangeRoleSchema = z.object({ role: RoleSchema });
+
+/**
+ * Where to go after signing in: only a path on this site (never `//host` or a full URL),
+ * so the sign-in page cannot be used to send people elsewhere.
+ */
+export function safeNextPath(value: string | null | undefined): string {
+  if (!value || !value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return '/';
+  return value;
+}

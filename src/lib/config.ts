@@ -1,0 +1,36 @@
+import { z } from 'zod';
+
+/**
+ * Runtime settings, read once from the environment and checked with zod so a bad
+ * deployment fails at start with a readable message instead of deep inside a request.
+ */
+const ConfigSchema = z.object({
+  /** PostgreSQL connection string, e.g. postgres://sequent:…@127.0.0.1:54329/sequent. */
+  DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, 'must be a postgres:// URL'),
+  /** The public origin of the app; sign-in cookies and origin checks are bound to it. */
+  SEQUENT_BASE_URL: z.string().url().default('http://127.0.0.1:4321'),
+  /** Secret that signs session cookies; at least 32 characters. */
+  BETTER_AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
+  /** `off` turns the sign-in rate limit off (test suites that sign in many times). */
+  SEQUENT_RATE_LIMIT: z.enum(['on', 'off']).default('on'),
+  NODE_ENV: z.string().default('development'),
+});
+
+export type Config = z.output<typeof ConfigSchema>;
+
+let cached: Config | undefined;
+
+/** The validated configuration; throws once, with every problem listed, if it is invalid. */
+export function config(): Config {
+  if (cached) return cached;
+  const parsed = ConfigSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message}`);
+    throw new Error(`Sequent cannot start: the environment is incomplete.\n${lines.join('\n')}`);
+  }
+  if (parsed.data.NODE_ENV === 'production' && !parsed.data.BETTER_AUTH_SECRET) {
+    throw new Error('Sequent cannot start: BETTER_AUTH_SECRET must be set in production.');
+  }
+  cached = parsed.data;
+  return cached;
+}
