@@ -6,8 +6,8 @@ import { fileURLToPath } from 'node:url';
 
 /** The project's root folder. */
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
-/** Local state (database cluster, settings); ignored by git. */
-export const dataDir = path.join(projectRoot, '.data');
+/** Local state (database cluster, settings); ignored by git. SEQUENT_DATA_DIR moves it. */
+export const dataDir = process.env.SEQUENT_DATA_DIR ? path.resolve(process.env.SEQUENT_DATA_DIR) : path.join(projectRoot, '.data');
 /** The demo cluster: its own port on loopback, never the system's 5432. */
 export const demoCluster = { root: path.join(dataDir, 'pg'), port: Number(process.env.SEQUENT_PG_PORT ?? 54329) };
 /** Where `npm start` serves the app. */
