@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { db } from '../../src/db/client';
 import { auditEvent } from '../../src/db/schema';
 import { changeMemberRole } from '../../src/lib/firms';

@@ -19,13 +19,22 @@ export function isOpenAuthPath(url: URL): boolean {
 }
 
 /**
+ * The client's address for rate limiting: the socket's, or — only when the app is told it
+ * sits behind a trusted load balancer — the first X-Forwarded-For entry.
+ */
+export function clientIp(request: Request, socketAddress: string): string {
+  if (config().SEQUENT_TRUST_PROXY !== 'on') return socketAddress;
+  return request.headers.get('x-forwarded-for')?.split(',')[0]?.trim() || socketAddress;
+}
+
+/**
  * Hands a request to better-auth with the client's socket address as x-forwarded-for, so
  * its rate limiter counts per client (the standalone server sets no such header itself).
- * A header sent by the client is replaced, not trusted.
+ * A header sent by the client is replaced, not trusted (see clientIp).
  */
 export async function forwardToAuth(request: Request, clientAddress: string): Promise<Response> {
   const headers = new Headers(request.headers);
-  headers.set('x-forwarded-for', clientAddress);
+  headers.set('x-forwarded-for', clientIp(request, clientAddress));
   const init: RequestInit & { duplex?: 'half' } = { method: request.method, headers };
   if (request.method !== 'GET' && request.method !== 'HEAD') {
     init.body = await request.arrayBuffer();
