@@ -41,7 +41,7 @@ try {
     throw new Error(`Port ${appPort} on ${appHost} is taken (is Sequent already running?). Stop it, or run with PORT=<other> npm start.`);
   }
   step('Serving');
-  const server = spawn(process.execPath, [path.join(projectRoot, 'dist/server/entry.mjs')], {
+  const server = spawn(process.execPath, [path.join(projectRoot, 'scripts/serve.mjs')], {
     cwd: projectRoot,
     stdio: 'inherit',
     env: { ...env, NODE_ENV: 'production', HOST: appHost, PORT: String(appPort) },

@@ -13,8 +13,6 @@ const ConfigSchema = z.object({
   BETTER_AUTH_SECRET: z.string().min(32, 'must be at least 32 characters').optional(),
   /** `off` turns the sign-in rate limit off (test suites that sign in many times). */
   SEQUENT_RATE_LIMIT: z.enum(['on', 'off']).default('on'),
-  /** `on` behind a load balancer: take the client address from its X-Forwarded-For. */
-  SEQUENT_TRUST_PROXY: z.enum(['on', 'off']).default('off'),
   NODE_ENV: z.string().default('development'),
 });
 

@@ -49,7 +49,7 @@ export default async function setup(project: TestProject) {
   const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8' });
   if (seed.status !== 0) throw new Error(`seeding the test database failed:\n${seed.stdout}\n${seed.stderr}`);
 
-  const server: ChildProcess = spawn(process.execPath, [entry], { cwd: projectRoot, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  const server: ChildProcess = spawn(process.execPath, [path.join(projectRoot, 'scripts', 'serve.mjs')], { cwd: projectRoot, env, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';
   server.stdout?.on('data', (d) => (output += d));
   server.stderr?.on('data', (d) => (output += d));

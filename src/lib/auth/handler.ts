@@ -19,22 +19,13 @@ export function isOpenAuthPath(url: URL): boolean {
 }
 
 /**
- * The client's address for rate limiting: the socket's, or — only when the app is told it
- * sits behind a trusted load balancer — the first X-Forwarded-For entry.
- */
-export function clientIp(request: Request, socketAddress: string): string {
-  if (config().SEQUENT_TRUST_PROXY !== 'on') return socketAddress;
-  return request.headers.get('x-forwarded-for')?.split(',')[0]?.trim() || socketAddress;
-}
-
-/**
- * Hands a request to better-auth with the client's socket address as x-forwarded-for, so
- * its rate limiter counts per client (the standalone server sets no such header itself).
- * A header sent by the client is replaced, not trusted (see clientIp).
+ * Hands a request to better-auth with the client's address as x-forwarded-for, so its rate
+ * limiter counts per client. `clientAddress` is Astro's, which scripts/serve.mjs makes the
+ * socket address unless a trusted load balancer forwards the client's.
  */
 export async function forwardToAuth(request: Request, clientAddress: string): Promise<Response> {
   const headers = new Headers(request.headers);
-  headers.set('x-forwarded-for', clientIp(request, clientAddress));
+  headers.set('x-forwarded-for', clientAddress);
   const init: RequestInit & { duplex?: 'half' } = { method: request.method, headers };
   if (request.method !== 'GET' && request.method !== 'HEAD') {
     init.body = await request.arrayBuffer();

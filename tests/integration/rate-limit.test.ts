@@ -1,0 +1,56 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { inject } from 'vitest';
+import { freePort, waitForPort } from '../../scripts/lib/ports.mjs';
+
+// The shared test server runs with the rate limit off; this file starts its own server with
+// it on (the production setting) from the same build.
+let server: ChildProcess;
+let base: string;
+
+beforeAll(async () => {
+  const port = await freePort();
+  base = `http://127.0.0.1:${port}`;
+  server = spawn(process.execPath, [path.resolve('scripts/serve.mjs')], {
+    env: {
+      ...process.env,
+      DATABASE_URL: inject('databaseUrl'),
+      SEQUENT_BASE_URL: base,
+      SEQUENT_RATE_LIMIT: 'on',
+      BETTER_AUTH_SECRET: 'test-secret-that-is-long-enough-for-better-auth',
+      NODE_ENV: 'production',
+      HOST: '127.0.0.1',
+      PORT: String(port),
+    },
+    stdio: 'ignore',
+  });
+  await waitForPort(port);
+});
+
+afterAll(() => {
+  server?.kill();
+});
+
+const attempt = (ip?: string) =>
+  fetch(`${base}/signin`, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: { 'content-type': 'application/x-www-form-urlencoded', origin: base, ...(ip ? { 'x-forwarded-for': ip } : {}) },
+    body: new URLSearchParams({ email: 'nobody@firm.example', password: 'wrong-password' }).toString(),
+  });
+
+describe('sign-in rate limit (on in production)', () => {
+  it('answers 429 with a clear message after 10 attempts a minute from one address', async () => {
+    const statuses: number[] = [];
+    for (let i = 0; i < 10; i += 1) statuses.push((await attempt()).status);
+    expect(statuses.every((s) => s === 401)).toBe(true);
+    const limited = await attempt();
+    expect(limited.status).toBe(429);
+    expect(await limited.text()).toContain('Too many sign-in attempts. Wait a minute and try again.');
+  });
+
+  it('does not let a client dodge the limit with its own X-Forwarded-For header', async () => {
+    expect((await attempt('203.0.113.77')).status).toBe(429);
+  });
+});
