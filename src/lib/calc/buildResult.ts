@@ -1,0 +1,97 @@
+/**
+ * Turns a solver answer into the display form of a block result: values in the block's
+ * unit system with sensible significant figures, warnings on the lines they concern.
+ */
+import {
+  displayUnit,
+  formatNumber,
+  type KindSpec,
+  type OutputFieldSpec,
+  type Quantity,
+  type SolveOutput,
+  type UnitSystem,
+  type Warning,
+} from '../solver';
+import type { ResolvedInputs } from './resolveInputs';
+import type { BlockResult, BlockWarning, ShownColumn, ShownValue } from './results';
+
+function unitText(quantity: string, system: UnitSystem): { factor: number; unit: string } {
+  const unit = quantity === 'text' ? undefined : displayUnit(quantity as Quantity, system);
+  if (!unit || unit.symbol === '-') return { factor: 1, unit: '' };
+  return { factor: unit.factor, unit: unit.display };
+}
+
+/** A value in display form. */
+export function show(
+  field: { name: string; label: string; symbol: string; latex: string; quantity: string },
+  si: ShownValue['si'],
+  system: UnitSystem,
+): ShownValue {
+  const { factor, unit } = unitText(field.quantity, system);
+  let text: string;
+  if (si === null || si === undefined) text = '—';
+  else if (typeof si === 'string') text = si;
+  else if (typeof si === 'number') text = formatNumber(si / factor);
+  else text = si.map((x) => formatNumber(x / factor)).join(', ');
+  return { name: field.name, label: field.label, symbol: field.symbol, latex: field.latex, quantity: field.quantity, si, text, unit: typeof si === 'string' ? '' : unit };
+}
+
+function column(c: OutputFieldSpec, system: UnitSystem): ShownColumn {
+  return { name: c.name, label: c.label, symbol: c.symbol, latex: c.latex, quantity: c.quantity, unit: unitText(c.quantity, system).unit };
+}
+
+/** Everything a successful block result is built from. */
+export interface ResultParts {
+  spec: KindSpec;
+  solved: SolveOutput;
+  warnings: readonly Warning[];
+  resolved: ResolvedInputs;
+  index: number;
+  word: string;
+  name: string | null;
+  line: number;
+  endLine: number;
+  solverVersion: string;
+}
+
+/** The result of a block (or a JSON request) that solved. */
+export function buildResult(p: ResultParts): BlockResult {
+  const { spec, solved, resolved } = p;
+  const system = resolved.unitSystem;
+  const inputs = spec.inputs
+    .filter((f) => resolved.inputs[f.name] !== undefined && f.type !== 'table')
+    .map((f) => show(f, resolved.inputs[f.name] as ShownValue['si'], system));
+  const outputs = spec.outputs.map((o) => show(o, solved.values[o.name] ?? null, system));
+  const warnings: BlockWarning[] = p.warnings.map((w) => {
+    const line = w.field !== undefined ? resolved.lineOf[w.field] : undefined;
+    return line === undefined ? { code: w.code, message: w.message } : { code: w.code, message: w.message, line };
+  });
+  let table: BlockResult['table'];
+  if (spec.table && solved.rows) {
+    const specColumns = spec.table.columns;
+    const rows = solved.rows.map((r) => specColumns.map((c) => r[c.name] ?? null));
+    table = {
+      columns: specColumns.map((c) => column(c, system)),
+      rows,
+      text: rows.map((r) => r.map((cell, k) => show(specColumns[k]!, cell, system).text)),
+    };
+  }
+  return {
+    index: p.index,
+    word: p.word,
+    kind: spec.kind,
+    title: spec.title,
+    name: p.name,
+    line: p.line,
+    endLine: p.endLine,
+    unitSystem: system,
+    status: 'ok',
+    inputs,
+    outputs,
+    ...(table ? { table } : {}),
+    warnings,
+    errors: [],
+    methodNote: spec.methodNote,
+    solverVersion: p.solverVersion,
+  };
+}

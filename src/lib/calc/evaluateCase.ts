@@ -1,0 +1,139 @@
+/**
+ * Evaluates every calculation block of a case body in dependency order: blocks can refer
+ * to other named blocks' outputs (`y1 = toe.y1`). Cycles and unknown references become
+ * line-numbered errors; a broken block never stops the others. Never throws.
+ */
+import { isSolverKind, KIND_SPECS, solve, SOLVER_VERSION, type KindSpec, type Quantity, type UnitSystem } from '../solver';
+import { solverKindOf } from './blockWords';
+import { buildResult } from './buildResult';
+import { extractBlocks } from './extractBlocks';
+import { parseBlock } from './parseBlock';
+import { closest, resolveInputs, type ReferenceValue } from './resolveInputs';
+import type { BlockResult, CaseEvaluation } from './results';
+import type { BlockSource, LineIssue } from './syntax';
+
+interface Node {
+  source: BlockSource;
+  index: number;
+  spec: KindSpec | null;
+  references: { block: string; line: number }[];
+}
+
+function referencesOf(source: BlockSource): Node['references'] {
+  return source.assignments.flatMap((a) => (a.value.type === 'reference' ? [{ block: a.value.block, line: a.line }] : []));
+}
+
+function failed(node: Node, errors: LineIssue[], unitSystem: UnitSystem = 'SI'): BlockResult {
+  const s = node.source;
+  return {
+    index: node.index,
+    word: s.word,
+    kind: node.spec?.kind ?? solverKindOf(s.word),
+    title: node.spec?.title ?? s.word,
+    name: s.name,
+    line: s.line,
+    endLine: s.endLine,
+    unitSystem,
+    status: 'error',
+    inputs: [],
+    outputs: [],
+    warnings: [],
+    errors: [...errors].sort((a, b) => a.line - b.line),
+    methodNote: node.spec?.methodNote ?? '',
+    solverVersion: SOLVER_VERSION,
+  };
+}
+
+/** Evaluates a whole case body; see the module comment. */
+export function evaluateCase(markdown: string): CaseEvaluation {
+  const nodes: Node[] = extractBlocks(typeof markdown === 'string' ? markdown : '').map((raw, index) => {
+    const source = parseBlock(raw);
+    const kind = solverKindOf(source.word);
+    return { source, index, spec: isSolverKind(kind) ? KIND_SPECS[kind] : null, references: referencesOf(source) };
+  });
+
+  const byName = new Map<string, Node>();
+  const duplicateNames = new Map<Node, LineIssue>();
+  for (const node of nodes) {
+    const name = node.source.name;
+    if (name === null) continue;
+    const first = byName.get(name);
+    if (first) duplicateNames.set(node, { line: node.source.line, message: `Another block is already named "${name}" (line ${first.source.line}).`, hint: 'Give each block its own name' });
+    else byName.set(name, node);
+  }
+
+  const results = new Map<Node, BlockResult>();
+  const visiting = new Set<Node>();
+
+  const evaluate = (node: Node, chain: Node[]): BlockResult => {
+    const done = results.get(node);
+    if (done) return done;
+    const issues: LineIssue[] = [...node.source.issues];
+    const duplicate = duplicateNames.get(node);
+    if (duplicate) issues.push(duplicate);
+    if (!node.spec) {
+      issues.push({ line: node.source.line, message: `Unknown calculation "${node.source.word}".` });
+      return finish(node, failed(node, issues));
+    }
+    const spec = node.spec;
+    visiting.add(node);
+    const lookup = (blockName: string, output: string): ReferenceValue => {
+      const target = byName.get(blockName);
+      if (!target) {
+        const guess = closest(blockName, [...byName.keys()]);
+        return {
+          ok: false,
+          message: byName.size ? `No block is named "${blockName}" in this case. Named blocks: ${[...byName.keys()].join(', ')}.` : `No block is named "${blockName}" in this case.`,
+          hint: guess ? `Did you mean ${guess}.${output}?` : `Name a block in its first line, e.g. \`\`\`toe ${blockName}`,
+        };
+      }
+      if (target === node || visiting.has(target)) {
+        const loop = [...chain.slice(chain.indexOf(target)), node].map((n) => n.source.name ?? `line ${n.source.line}`);
+        return { ok: false, message: `Blocks refer to each other in a circle: ${[...loop, target.source.name].join(' → ')}.`, hint: 'Give one of them a value instead of a reference' };
+      }
+      const result = evaluate(target, [...chain, node]);
+      if (result.status === 'error') return { ok: false, message: `Block "${blockName}" has errors, so ${blockName}.${output} has no value yet.` };
+      const found = [...result.outputs, ...result.inputs].find((v) => v.name === output || v.symbol === output || v.name.toLowerCase() === output.toLowerCase());
+      if (!found || found.si === null) {
+        const names = result.outputs.map((o) => o.symbol);
+        const guess = closest(output, [...names, ...result.outputs.map((o) => o.name)]);
+        return { ok: false, message: `Block "${blockName}" has no result "${output}". Results: ${names.join(', ')}.`, ...(guess ? { hint: `Did you mean ${blockName}.${guess}?` } : {}) };
+      }
+      if (found.si === null || (typeof found.si === 'object' && !Array.isArray(found.si))) return { ok: false, message: `${blockName}.${output} cannot be used as a value.` };
+      return { ok: true, value: found.si as number | string | readonly number[], quantity: Array.isArray(found.si) ? 'list' : (found.quantity as Quantity) };
+    };
+    const resolved = resolveInputs(spec, node.source.assignments, lookup);
+    visiting.delete(node);
+    issues.push(...resolved.issues);
+    if (issues.length) return finish(node, failed(node, issues, resolved.unitSystem));
+
+    const solved = solve(spec.kind, resolved.inputs);
+    const lineFor = (field?: string) => (field !== undefined ? resolved.lineOf[field] : undefined) ?? node.source.line;
+    if (!solved.ok) {
+      const error = solved.error;
+      return finish(node, failed(node, [{ line: lineFor(error.field), message: error.message }], resolved.unitSystem));
+    }
+    return finish(
+      node,
+      buildResult({
+        spec,
+        solved: solved.value,
+        warnings: solved.warnings,
+        resolved,
+        index: node.index,
+        word: node.source.word,
+        name: node.source.name,
+        line: node.source.line,
+        endLine: node.source.endLine,
+        solverVersion: SOLVER_VERSION,
+      }),
+    );
+  };
+
+  const finish = (node: Node, result: BlockResult): BlockResult => {
+    results.set(node, result);
+    return result;
+  };
+
+  return { blocks: nodes.map((n) => evaluate(n, [])), solverVersion: SOLVER_VERSION };
+}

@@ -1,0 +1,67 @@
+/**
+ * What evaluating a case body returns: per block either results or line-numbered errors.
+ * Plain data (JSON-serialisable): stored as the revision's snapshot and sent to the browser.
+ */
+import type { LineIssue } from './syntax';
+
+/** A value shown in a results table: SI for machines, formatted in the block's units for people. */
+export interface ShownValue {
+  /** Stable key (the solver's field or output name). */
+  readonly name: string;
+  readonly label: string;
+  readonly symbol: string;
+  readonly latex: string;
+  readonly quantity: string;
+  /** SI number, text label, list of SI numbers, or null where not defined. */
+  readonly si: number | string | readonly number[] | null;
+  /** Formatted number(s) or text, without the unit. */
+  readonly text: string;
+  /** Display unit (e.g. `m³/s`), empty for dimensionless values and text. */
+  readonly unit: string;
+}
+
+/** One column of a results table of many rows (a tailwater sweep). */
+export interface ShownColumn {
+  readonly name: string;
+  readonly label: string;
+  readonly symbol: string;
+  readonly latex: string;
+  readonly quantity: string;
+  readonly unit: string;
+}
+
+/** A warning from the solver, tied to the line of the input it concerns when there is one. */
+export interface BlockWarning {
+  readonly code: string;
+  readonly message: string;
+  readonly line?: number;
+}
+
+/** The outcome of one calculation block. */
+export interface BlockResult {
+  /** Position of the block in the case, from 0. */
+  readonly index: number;
+  readonly word: string;
+  /** Solver kind id. */
+  readonly kind: string;
+  readonly title: string;
+  readonly name: string | null;
+  readonly line: number;
+  readonly endLine: number;
+  readonly unitSystem: 'SI' | 'US';
+  readonly status: 'ok' | 'error';
+  readonly inputs: readonly ShownValue[];
+  readonly outputs: readonly ShownValue[];
+  readonly table?: { readonly columns: readonly ShownColumn[]; readonly rows: readonly (readonly (number | string | null)[])[]; readonly text: readonly (readonly string[])[] };
+  readonly warnings: readonly BlockWarning[];
+  readonly errors: readonly LineIssue[];
+  /** Slug of the method note of the kind (content/methods). */
+  readonly methodNote: string;
+  readonly solverVersion: string;
+}
+
+/** The outcome of a whole case body. */
+export interface CaseEvaluation {
+  readonly blocks: readonly BlockResult[];
+  readonly solverVersion: string;
+}
