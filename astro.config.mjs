@@ -4,6 +4,8 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import { defineConfig } from 'astro/config';
+import rehypeKatex from 'rehype-katex';
+import remarkMath from 'remark-math';
 
 // Host names the server believes in the Host header (Astro ignores any other, which would
 // break the same-origin check of form posts). Loopback for the local app and tests, plus
@@ -15,6 +17,8 @@ export default defineConfig({
   output: 'server',
   adapter: node({ mode: 'standalone' }),
   integrations: [react(), mdx()],
+  // Method notes and guides in content/ are markdown with KaTeX math.
+  markdown: { remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex], shikiConfig: { theme: 'github-light' } },
   server: { host: '127.0.0.1', port: 4321 },
   // Rejects cross-site form posts to on-demand pages (CSRF); JSON APIs rely on CORS.
   security: { checkOrigin: true, allowedDomains },
