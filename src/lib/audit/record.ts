@@ -2,7 +2,7 @@ import type { Queryable } from '../../db/client';
 import { auditEvent } from '../../db/schema';
 
 /** Every kind of event the audit trail records. */
-export type AuditAction = 'member.added' | 'member.role_changed' | 'firm.created';
+export type AuditAction = 'member.added' | 'member.role_changed' | 'firm.created' | 'case.created' | 'case.saved';
 
 /** One event to append. */
 export interface AuditEntry {
