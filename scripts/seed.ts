@@ -6,7 +6,9 @@ import { hashPassword } from '../src/lib/auth';
 
 try {
   const added = await seedDemo(db(), hashPassword);
-  console.log(added ? `Demo data: added ${added} people.` : 'Demo data already present.');
+  console.log(
+    added.people || added.cases ? `Demo data: added ${added.people} people and ${added.cases} cases.` : 'Demo data already present.',
+  );
   if (process.argv.includes('--print')) {
     console.log(`\nDemo accounts (password for all: ${DEMO_PASSWORD})`);
     for (const firm of DEMO_FIRMS) {

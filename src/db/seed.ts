@@ -3,9 +3,14 @@
  * and address here is invented (the `.example` domain is reserved for examples).
  * Safe to run again: existing firms and people are left as they are.
  */
+import { and, eq } from 'drizzle-orm';
 import type { Role } from '../lib/auth/roles';
+import { createCase } from '../lib/cases/create';
+import { CaseMetadataSchema } from '../lib/cases/validation';
 import { addMember, ensureFirm, type HashPassword } from '../lib/firms';
 import type { Database } from './client';
+import { readDemoCases } from './demoCases';
+import { caseFile, user } from './schema';
 
 /** The shared password of every demo account (printed by `npm start`, listed in the README). */
 export const DEMO_PASSWORD = 'sequent-demo';
@@ -44,11 +49,23 @@ export const DEMO_FIRMS: DemoFirm[] = [
   },
 ];
 
-/** Creates the demo firms and people that do not exist yet; returns how many people were added. */
-export async function seedDemo(database: Database, hashPassword: HashPassword): Promise<number> {
+/** What a seed run added. */
+export interface SeedReport {
+  people: number;
+  cases: number;
+}
+
+/**
+ * Creates the demo firms, people and cases that do not exist yet (cases are matched by
+ * title within the first demo firm, so edits made in the demo are kept).
+ */
+export async function seedDemo(database: Database, hashPassword: HashPassword): Promise<SeedReport> {
   let added = 0;
+  let cases = 0;
+  let firstFirmId: string | null = null;
   for (const demo of DEMO_FIRMS) {
     const firm = await ensureFirm(database, { name: demo.name, slug: demo.slug });
+    firstFirmId ??= firm.id;
     for (const person of demo.people) {
       const result = await addMember(database, hashPassword, {
         ...person,
@@ -59,5 +76,19 @@ export async function seedDemo(database: Database, hashPassword: HashPassword): 
       if (result.ok) added += 1;
     }
   }
-  return added;
+  if (firstFirmId) {
+    for (const demo of readDemoCases()) {
+      const [exists] = await database
+        .select({ id: caseFile.id })
+        .from(caseFile)
+        .where(and(eq(caseFile.firmId, firstFirmId), eq(caseFile.title, demo.metadata.title)));
+      if (exists) continue;
+      const [author] = await database.select({ id: user.id }).from(user).where(eq(user.email, demo.authorEmail));
+      if (!author) throw new Error(`${demo.file}: no demo account ${demo.authorEmail}`);
+      const metadata = CaseMetadataSchema.parse(demo.metadata);
+      await createCase(database, { firmId: firstFirmId, authorId: author.id, metadata, body: demo.body });
+      cases += 1;
+    }
+  }
+  return { people: added, cases };
 }

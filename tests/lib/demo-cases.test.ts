@@ -1,0 +1,188 @@
+/**
+ * The demo cases in content/cases: frontmatter keys and allowed values, and every
+ * calculation block evaluates without errors on the shared solver.
+ */
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { evaluateCase } from '../../src/lib/calc';
+import type { BlockResult } from '../../src/lib/calc';
+
+const DIR = join(process.cwd(), 'content', 'cases');
+
+const KEYS = ['title', 'author', 'structureType', 'sectionShape', 'projectReference', 'region', 'tags', 'summary'];
+const AUTHORS = ['tomas.ilvar@kestrelweir.example', 'priya.odunya@kestrelweir.example'];
+const STRUCTURE_TYPES = ['spillway-basin', 'chute-outlet', 'culvert-outlet', 'outfall', 'drop-structure', 'gate-tailwater', 'weir-tailwater', 'canal-surge', 'tidal-bore', 'dam-break', 'other'];
+const SECTION_SHAPES = ['rectangular', 'trapezoidal', 'triangular', 'circular', 'mixed'];
+
+type Scalar = string | string[];
+
+/** Splits the leading `---` block off a markdown file. */
+function splitFrontmatter(text: string): { yaml: string; body: string } {
+  const match = /^---\n([\s\S]*?)\n---\n([\s\S]*)$/.exec(text.replace(/\r\n/g, '\n'));
+  if (!match) throw new Error('no leading --- frontmatter block');
+  return { yaml: match[1]!, body: match[2]! };
+}
+
+/** A minimal YAML subset: `key: value` lines, values plain, quoted or `[a, b]` flow lists. */
+function readYaml(yaml: string): Record<string, Scalar> {
+  const out: Record<string, Scalar> = {};
+  for (const [index, line] of yaml.split('\n').entries()) {
+    if (line.trim() === '' || line.trimStart().startsWith('#')) continue;
+    const m = /^([A-Za-z][A-Za-z0-9]*):\s*(.*)$/.exec(line);
+    if (!m) throw new Error(`frontmatter line ${index + 2} is not "key: value": ${line}`);
+    const [, key, raw] = m as unknown as [string, string, string];
+    if (key in out) throw new Error(`frontmatter key ${key} appears twice`);
+    const value = raw.trim();
+    const unquote = (s: string) => (/^(['"]).*\1$/.test(s) ? s.slice(1, -1) : s);
+    out[key] = value.startsWith('[') && value.endsWith(']')
+      ? value.slice(1, -1).split(',').map((s) => unquote(s.trim())).filter((s) => s !== '')
+      : unquote(value);
+  }
+  return out;
+}
+
+interface DemoCase {
+  file: string;
+  meta: Record<string, Scalar>;
+  body: string;
+  blocks: readonly BlockResult[];
+}
+
+const files = readdirSync(DIR).filter((f) => f.endsWith('.md')).sort();
+const cases: DemoCase[] = files.map((file) => {
+  const { yaml, body } = splitFrontmatter(readFileSync(join(DIR, file), 'utf8'));
+  return { file, meta: readYaml(yaml), body, blocks: evaluateCase(body).blocks };
+});
+
+const byType = (type: string) => cases.filter((c) => c.meta['structureType'] === type);
+const si = (block: BlockResult, name: string) => block.outputs.find((o) => o.name === name)?.si;
+
+describe('demo cases in content/cases', () => {
+  it('there are eight of them, with distinct project references and titles', () => {
+    expect(files).toHaveLength(8);
+    expect(new Set(cases.map((c) => c.meta['projectReference'])).size).toBe(8);
+    expect(new Set(cases.map((c) => c.meta['title'])).size).toBe(8);
+  });
+
+  it('cover the required structure types', () => {
+    for (const type of ['spillway-basin', 'culvert-outlet', 'canal-surge', 'tidal-bore', 'drop-structure', 'outfall', 'gate-tailwater', 'dam-break']) {
+      expect(byType(type), type).toHaveLength(1);
+    }
+  });
+
+  describe.each(cases.map((c) => [c.file, c] as const))('%s', (_file, c) => {
+    it('has exactly the frontmatter keys, with allowed values', () => {
+      expect(Object.keys(c.meta).sort()).toEqual([...KEYS].sort());
+      const { title, author, structureType, sectionShape, projectReference, region, tags, summary } = c.meta;
+      expect(typeof title === 'string' && title.length >= 3 && title.length <= 160).toBe(true);
+      expect(AUTHORS).toContain(author);
+      expect(STRUCTURE_TYPES).toContain(structureType);
+      expect(SECTION_SHAPES).toContain(sectionShape);
+      expect(projectReference).toMatch(/^KWC-\d{4}$/);
+      expect(typeof region === 'string' && region.length > 0 && region.length <= 80).toBe(true);
+      expect(Array.isArray(tags)).toBe(true);
+      expect((tags as string[]).length).toBeGreaterThanOrEqual(2);
+      expect((tags as string[]).length).toBeLessThanOrEqual(5);
+      for (const tag of tags as string[]) expect(tag).toMatch(/^[a-z]+$/);
+      expect(new Set(tags as string[]).size).toBe((tags as string[]).length);
+      // One sentence: text ending in a full stop, with no sentence break inside.
+      expect(typeof summary === 'string' && summary.endsWith('.')).toBe(true);
+      expect(summary as string).not.toMatch(/[.!?]\s+[A-Z]/);
+    });
+
+    it('has calculation blocks that all evaluate without errors', () => {
+      expect(c.blocks.length).toBeGreaterThan(0);
+      for (const block of c.blocks) {
+        expect(block.errors, `${c.file} block ${block.name ?? block.index} (line ${block.line})`).toEqual([]);
+        expect(block.status).toBe('ok');
+      }
+    });
+
+    it('names every block, and its velocities are physically plausible (≤ 25 m/s)', () => {
+      for (const block of c.blocks) {
+        expect(block.name).toMatch(/^[A-Za-z][A-Za-z0-9_-]*$/);
+        for (const output of block.outputs) {
+          if (output.quantity === 'velocity' && typeof output.si === 'number') expect(Math.abs(output.si)).toBeLessThanOrEqual(25);
+        }
+      }
+    });
+
+    it('closes with the design-aid caution', () => {
+      expect(c.body).toMatch(/design aids/);
+      expect(c.body).toMatch(/licensed engineer/);
+      expect(c.body).toMatch(/physical model stud/);
+    });
+  });
+
+  it('case 1 (spillway basin) chains toe → jump → tailwater with a steady design jump', () => {
+    const [c] = byType('spillway-basin');
+    const words = c!.blocks.map((b) => b.word);
+    expect(words).toEqual(expect.arrayContaining(['toe', 'jump', 'tailwater']));
+    const jump = c!.blocks.find((b) => b.word === 'jump')!;
+    expect(si(jump, 'fr1') as number).toBeGreaterThan(5);
+    expect(si(jump, 'fr1') as number).toBeLessThan(8);
+    expect(si(jump, 'jumpType')).toBe('steady');
+  });
+
+  it('case 2 (culvert outlet) has a trapezoidal jump with 4 < Fr1 < 6', () => {
+    const [c] = byType('culvert-outlet');
+    expect(c!.meta['sectionShape']).toBe('trapezoidal');
+    const jumps = c!.blocks.filter((b) => b.kind === 'hydraulic-jump');
+    expect(jumps.length).toBeGreaterThan(0);
+    for (const jump of jumps) {
+      expect(jump.inputs.find((i) => i.name === 'shape')?.si).toBe('trapezoidal');
+      expect(si(jump, 'fr1') as number).toBeGreaterThan(4);
+      expect(si(jump, 'fr1') as number).toBeLessThan(6);
+    }
+  });
+
+  it('case 3 (canal surge) runs upstream from a change of discharge with an undular front', () => {
+    const [c] = byType('canal-surge');
+    const surges = c!.blocks.filter((b) => b.kind === 'surge');
+    expect(surges.length).toBeGreaterThan(0);
+    for (const s of surges) {
+      expect(s.inputs.find((i) => i.name === 'dischargeChange')).toBeDefined();
+      expect(si(s, 'surgeSpeed') as number).toBeLessThan(0);
+      expect(s.warnings.map((w) => w.code)).toContain('undular-bore');
+    }
+  });
+
+  it('case 4 (tidal bore) runs into the ebb and shows both a breaking and an undular front', () => {
+    const [c] = byType('tidal-bore');
+    const surges = c!.blocks.filter((b) => b.kind === 'surge');
+    for (const s of surges) expect(s.inputs.find((i) => i.name === 'velocity')?.si as number).toBeGreaterThan(0);
+    expect(surges.map((s) => si(s, 'frontType'))).toEqual(expect.arrayContaining(['breaking', 'undular']));
+  });
+
+  it('case 5 (drop structure) is written in US customary units', () => {
+    const [c] = byType('drop-structure');
+    for (const block of c!.blocks) expect(block.unitSystem).toBe('US');
+  });
+
+  it('case 6 (outfall) has a jump in a circular section with a near-crown warning', () => {
+    const [c] = byType('outfall');
+    const jumps = c!.blocks.filter((b) => b.kind === 'hydraulic-jump');
+    for (const jump of jumps) expect(jump.inputs.find((i) => i.name === 'shape')?.si).toBe('circular');
+    expect(jumps.flatMap((j) => j.warnings.map((w) => w.code))).toContain('near-crown');
+  });
+
+  it('case 7 (gate tailwater) chains gate → jump and the solver warns of an undular jump', () => {
+    const [c] = byType('gate-tailwater');
+    expect(c!.blocks.map((b) => b.word)).toEqual(expect.arrayContaining(['gate', 'jump']));
+    const jumps = c!.blocks.filter((b) => b.kind === 'hydraulic-jump');
+    expect(jumps.length).toBeGreaterThan(0);
+    for (const jump of jumps) {
+      expect(si(jump, 'fr1') as number).toBeGreaterThan(1.3);
+      expect(si(jump, 'fr1') as number).toBeLessThan(1.7);
+      expect(jump.warnings.map((w) => w.code)).toContain('undular-jump');
+    }
+  });
+
+  it('case 8 (dam break) uses the wet-bed dambreak block', () => {
+    const [c] = byType('dam-break');
+    const breaks = c!.blocks.filter((b) => b.kind === 'dam-break');
+    expect(breaks.length).toBeGreaterThan(0);
+    for (const b of breaks) expect(b.warnings.map((w) => w.code)).not.toContain('nearly-dry-bed');
+  });
+});
