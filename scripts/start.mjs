@@ -35,7 +35,7 @@ try {
   if (flags.has('--setup-only')) process.exit(0);
   if (!flags.has('--no-build')) {
     step('Building the app');
-    run('npx', ['astro', 'build'], env);
+    run('npx', ['astro', 'build'], { ...env, NODE_ENV: 'production' });
   }
   if (await portInUse(appPort)) {
     throw new Error(`Port ${appPort} on ${appHost} is taken (is Sequent already running?). Stop it, or run with PORT=<other> npm start.`);

@@ -46,7 +46,7 @@ describe('signing in through the real page', () => {
   it('signs an engineer in and shows the casebook home with their name and firm', async () => {
     await page.fill('#password', DEMO_PASSWORD);
     await Promise.all([page.waitForURL(`${appUrl()}/`), page.click('button[type=submit]')]);
-    await page.waitForSelector('[data-testid=empty-casebook]');
+    await page.waitForSelector('[data-testid=recent-cases]');
     const who = await page.textContent('[data-testid=signed-in-as]');
     expect(who).toContain('Tomas Ilvar');
     expect(who).toContain('Kestrel Weir Consulting · Engineer');

@@ -24,7 +24,9 @@ function buildIfStale(): void {
   if (builtAt && Math.max(...sources.map(newestMtime)) < builtAt) return;
   const result = spawnSync('npx', ['astro', 'build'], {
     cwd: projectRoot,
-    env: { ...process.env, ASTRO_TELEMETRY_DISABLED: '1' },
+    // Vitest sets NODE_ENV=test; a build must be a production build (else React's
+    // development JSX runtime is compiled in and fails against the production runtime).
+    env: { ...process.env, NODE_ENV: 'production', ASTRO_TELEMETRY_DISABLED: '1' },
     encoding: 'utf8',
   });
   if (result.status !== 0) throw new Error(`astro build failed:\n${result.stdout}\n${result.stderr}`);

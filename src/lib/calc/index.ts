@@ -1,5 +1,6 @@
 export { BLOCK_WORDS, blockWordOf, isBlockWord, solverKindOf, type BlockWord } from './blockWords';
 export { evaluateCase } from './evaluateCase';
+export { BLOCK_TEMPLATES, CASE_SKELETON, type BlockTemplate } from './templates';
 export { solveJson, type InputIssue, type JsonInput, type JsonSolveResult } from './solveJson';
 export { extractBlocks, type RawBlock } from './extractBlocks';
 export { parseBlock, parseNumber } from './parseBlock';
