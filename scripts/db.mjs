@@ -2,6 +2,7 @@
 // The demo database: `node scripts/db.mjs start|stop|status`. Safe to run again and again.
 import { ensureDatabase, initCluster, isRunning, startCluster, stopCluster, clusterPaths } from './lib/postgres.mjs';
 import { demoCluster, demoSettings } from './lib/project.mjs';
+import { checkNode, ensureDependencies, run, step } from './lib/steps.mjs';
 
 /** Initialises (first time), starts and provisions the demo database; returns its URL. */
 export function startDemoDatabase(log = console.log) {
@@ -10,6 +11,23 @@ export function startDemoDatabase(log = console.log) {
   const settings = demoSettings();
   ensureDatabase(demoCluster, { database: 'sequent', role: 'sequent', password: settings.SEQUENT_DB_PASSWORD });
   return settings.DATABASE_URL;
+}
+
+/**
+ * Everything the demo installation needs before the app runs: Node and npm dependencies,
+ * PostgreSQL, migrations, demo data. Returns the environment the app runs with.
+ */
+export async function prepareDemo({ printAccounts = false } = {}) {
+  checkNode();
+  ensureDependencies();
+  step('Starting PostgreSQL');
+  startDemoDatabase();
+  const env = { ...process.env, ...demoSettings(), ASTRO_TELEMETRY_DISABLED: '1' };
+  step('Applying migrations');
+  run('npx', ['tsx', 'scripts/migrate.ts'], env);
+  step('Seeding demo data');
+  run('npx', ['tsx', 'scripts/seed.ts', ...(printAccounts ? ['--print'] : [])], env);
+  return env;
 }
 
 const command = process.argv[2];

@@ -1,19 +1,11 @@
 #!/usr/bin/env node
 // `npm run dev`: the demo database plus Astro's dev server with hot reload on 127.0.0.1:4321.
 import { spawn } from 'node:child_process';
-import { startDemoDatabase } from './db.mjs';
-import { demoSettings } from './lib/project.mjs';
-import { checkNode, ensureDependencies, run, step } from './lib/steps.mjs';
+import { prepareDemo } from './db.mjs';
+import { step } from './lib/steps.mjs';
 
 try {
-  checkNode();
-  ensureDependencies();
-  step('Starting PostgreSQL');
-  startDemoDatabase();
-  const env = { ...process.env, ...demoSettings(), ASTRO_TELEMETRY_DISABLED: '1' };
-  step('Applying migrations and demo data');
-  run('npx', ['tsx', 'scripts/migrate.ts'], env);
-  run('npx', ['tsx', 'scripts/seed.ts'], env);
+  const env = await prepareDemo();
   step('Astro dev server');
   const dev = spawn('npx', ['astro', 'dev', '--host', '127.0.0.1', ...process.argv.slice(2)], { stdio: 'inherit', env });
   for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => dev.kill(signal));

@@ -6,9 +6,9 @@
 import { spawn } from 'node:child_process';
 import net from 'node:net';
 import path from 'node:path';
-import { startDemoDatabase } from './db.mjs';
-import { appHost, appPort, demoSettings, projectRoot } from './lib/project.mjs';
-import { checkNode, ensureDependencies, run, step } from './lib/steps.mjs';
+import { prepareDemo } from './db.mjs';
+import { appHost, appPort, projectRoot } from './lib/project.mjs';
+import { run, step } from './lib/steps.mjs';
 
 const flags = new Set(process.argv.slice(2));
 
@@ -23,15 +23,7 @@ function portInUse(port) {
 }
 
 try {
-  checkNode();
-  ensureDependencies();
-  step('Starting PostgreSQL');
-  startDemoDatabase();
-  const env = { ...process.env, ...demoSettings(), ASTRO_TELEMETRY_DISABLED: '1' };
-  step('Applying migrations');
-  run('npx', ['tsx', 'scripts/migrate.ts'], env);
-  step('Seeding demo data');
-  run('npx', ['tsx', 'scripts/seed.ts', '--print'], env);
+  const env = await prepareDemo({ printAccounts: true });
   if (flags.has('--setup-only')) process.exit(0);
   if (!flags.has('--no-build')) {
     step('Building the app');
