@@ -99,8 +99,7 @@ export function evaluateCase(markdown: string): CaseEvaluation {
         const guess = closest(output, [...names, ...result.outputs.map((o) => o.name)]);
         return { ok: false, message: `Block "${blockName}" has no result "${output}". Results: ${names.join(', ')}.`, ...(guess ? { hint: `Did you mean ${blockName}.${guess}?` } : {}) };
       }
-      if (found.si === null || (typeof found.si === 'object' && !Array.isArray(found.si))) return { ok: false, message: `${blockName}.${output} cannot be used as a value.` };
-      return { ok: true, value: found.si as number | string | readonly number[], quantity: Array.isArray(found.si) ? 'list' : (found.quantity as Quantity) };
+      return { ok: true, value: found.si, quantity: Array.isArray(found.si) ? 'list' : (found.quantity as Quantity) };
     };
     const resolved = resolveInputs(spec, node.source.assignments, lookup);
     visiting.delete(node);

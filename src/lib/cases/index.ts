@@ -24,7 +24,7 @@ export {
   type SaveCaseRequest,
   type StructureType,
 } from './validation';
-export { keyFigures, NO_KEY_FIGURES, type KeyFigures } from './keyFigures';
+export { formatRange, keyFigures, NO_KEY_FIGURES, type KeyFigures } from './keyFigures';
 export { MAX_SLUG_LENGTH, nextFreeSlug, slugify } from './slug';
 export { diffRevisions, type DiffHunk, type DiffLine, type DiffOptions, type TextDiff } from './diff';
 export { createCase, type NewCase } from './create';

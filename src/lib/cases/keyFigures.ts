@@ -4,7 +4,7 @@
  * Pure; the service stores them as columns of the revision.
  */
 import type { BlockResult, CaseEvaluation } from '../calc';
-import { KIND_SPECS, isSolverKind } from '../solver';
+import { formatNumber, KIND_SPECS, isSolverKind } from '../solver';
 
 /** Key figures of one revision; null where no block gives the value. */
 export interface KeyFigures {
@@ -90,4 +90,15 @@ export function keyFigures(evaluation: CaseEvaluation): KeyFigures {
     sectionShapes: [...shapes].sort(),
     calcKinds: [...new Set(blocks.map((b) => b.kind))].sort(),
   };
+}
+
+/**
+ * A key-figure range for tables and summaries, to 3 significant figures: `5.26–15.4`,
+ * one value when both ends read the same, `—` when the case has no such figure.
+ */
+export function formatRange(min: number | null, max: number | null, unit = ''): string {
+  if (min === null || max === null) return '—';
+  const a = formatNumber(min, 3);
+  const b = formatNumber(max, 3);
+  return `${a === b ? a : `${a}–${b}`}${unit ? ` ${unit}` : ''}`;
 }
