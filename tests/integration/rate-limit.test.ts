@@ -1,36 +1,18 @@
-import { spawn, type ChildProcess } from 'node:child_process';
-import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { inject } from 'vitest';
-import { freePort, waitForPort } from '../../scripts/lib/ports.mjs';
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
+import { startApp } from '../helpers/appProcess';
 
 // The shared test server runs with the rate limit off; this file starts its own server with
 // it on (the production setting) from the same build.
-let server: ChildProcess;
 let base: string;
+let stop: () => Promise<void>;
 
 beforeAll(async () => {
-  const port = await freePort();
-  base = `http://127.0.0.1:${port}`;
-  server = spawn(process.execPath, [path.resolve('scripts/serve.mjs')], {
-    env: {
-      ...process.env,
-      DATABASE_URL: inject('databaseUrl'),
-      SEQUENT_BASE_URL: base,
-      SEQUENT_RATE_LIMIT: 'on',
-      BETTER_AUTH_SECRET: 'test-secret-that-is-long-enough-for-better-auth',
-      NODE_ENV: 'production',
-      HOST: '127.0.0.1',
-      PORT: String(port),
-    },
-    stdio: 'ignore',
-  });
-  await waitForPort(port);
+  const app = await startApp(inject('databaseUrl'), 'on');
+  base = app.url;
+  stop = app.stop;
 });
 
-afterAll(() => {
-  server?.kill();
-});
+afterAll(() => stop?.());
 
 const attempt = (ip?: string) =>
   fetch(`${base}/signin`, {

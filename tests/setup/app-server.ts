@@ -2,12 +2,12 @@
  * Vitest global setup: the built app (rebuilt when sources are newer than the build),
  * seeded with the demo firms and served on a free loopback port against the test database.
  */
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
-import { freePort, waitForPort } from '../../scripts/lib/ports.mjs';
 import { projectRoot } from '../../scripts/lib/project.mjs';
+import { startApp } from '../helpers/appProcess';
 
 const entry = path.join(projectRoot, 'dist', 'server', 'entry.mjs');
 
@@ -36,34 +36,10 @@ export default async function setup(project: TestProject) {
   const databaseUrl = process.env.SEQUENT_TEST_DATABASE_URL;
   if (!databaseUrl) throw new Error('tests/setup/database.ts must run before app-server.ts');
   buildIfStale();
-  const port = await freePort();
-  const appUrl = `http://127.0.0.1:${port}`;
-  const env = {
-    ...process.env,
-    DATABASE_URL: databaseUrl,
-    SEQUENT_BASE_URL: appUrl,
-    SEQUENT_RATE_LIMIT: 'off',
-    BETTER_AUTH_SECRET: 'test-secret-that-is-long-enough-for-better-auth',
-    NODE_ENV: 'production',
-    HOST: '127.0.0.1',
-    PORT: String(port),
-  };
-  const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8' });
-  if (seed.status !== 0) throw new Error(`seeding the test database failed:\n${seed.stdout}\n${seed.stderr}`);
-
-  const server: ChildProcess = spawn(process.execPath, [path.join(projectRoot, 'scripts', 'serve.mjs')], { cwd: projectRoot, env, stdio: ['ignore', 'pipe', 'pipe'] });
-  let output = '';
-  server.stdout?.on('data', (d) => (output += d));
-  server.stderr?.on('data', (d) => (output += d));
-  try {
-    await waitForPort(port);
-  } catch (error) {
-    server.kill();
-    throw new Error(`the app server did not start:\n${output}`, { cause: error });
-  }
-  project.provide('appUrl', appUrl);
-  return async () => {
-    server.kill('SIGTERM');
-    await new Promise((resolve) => (server.exitCode !== null ? resolve(null) : server.once('exit', resolve)));
-  };
+  const app = await startApp(databaseUrl, 'off', (env) => {
+    const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8' });
+    if (seed.status !== 0) throw new Error(`seeding the test database failed:\n${seed.stdout}\n${seed.stderr}`);
+  });
+  project.provide('appUrl', app.url);
+  return app.stop;
 }
