@@ -158,72 +158,140 @@ function Inputs({ inputs }: { inputs: readonly ShownValue[] }) {
   );
 }
 
-/** The results panel of one block; see the module comment. */
-export function BlockResults({ block, children, lead, headingLevel = 3, actions, showInputs = true, maxRows = 400 }: BlockResultsProps) {
-  const id = useId();
+/** What the panel's header shows of a block: enough for the what-if island to draw it. */
+export type BlockHead = Pick<BlockResult, 'index' | 'status' | 'title' | 'name' | 'word' | 'unitSystem' | 'line' | 'endLine'>;
+
+/** The header fields of `block`, for {@link BlockPanel}. */
+export function blockHead(block: BlockResult): BlockHead {
+  const { index, status, title, name, word, unitSystem, line, endLine } = block;
+  return { index, status, title, name, word, unitSystem, line, endLine };
+}
+
+/** Classes of a block panel's frame and of its body, shared with the reading page's static frame. */
+export const PANEL_CLASS = 'block-results my-6 break-inside-avoid rounded border border-rule bg-paper font-sans text-ink print:border-ink-soft';
+export const PANEL_BODY_CLASS = 'space-y-4 px-4 py-3';
+
+/** Props of {@link BlockHeader}. */
+export interface BlockHeaderProps {
+  readonly head: BlockHead;
+  /** Id of the heading, which the panel's `aria-labelledby` names. */
+  readonly headingId: string;
+  readonly headingLevel?: 2 | 3 | 4 | 5;
+  /** Extra content at the right of the header (a badge, a button). */
+  readonly actions?: ReactNode;
+}
+
+/** A block panel's header: title, name, calculation word, unit system, lines, actions. */
+export function BlockHeader({ head, headingId, headingLevel = 3, actions }: BlockHeaderProps) {
   const Heading = `h${headingLevel}` as const;
-  const failed = block.status === 'error';
   return (
-    <section
-      aria-labelledby={`${id}h`}
-      data-block-index={block.index}
-      data-status={block.status}
-      className="block-results my-6 break-inside-avoid rounded border border-rule bg-paper font-sans text-ink print:border-ink-soft"
-    >
-      <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1 border-b border-rule bg-paper-deep px-4 py-2">
-        <Heading id={`${id}h`} className="font-serif text-base font-bold">
-          {block.title}
-          {block.name && <span className="ml-2 font-mono text-sm font-normal text-ink-soft">{block.name}</span>}
-        </Heading>
-        <p className="text-sm text-ink-soft">
-          <span className="font-mono">{block.word}</span>
-          {` · ${SYSTEM_TEXT[block.unitSystem]} · lines ${block.line}–${block.endLine}`}
-        </p>
-        {actions && <div className="ml-auto no-print">{actions}</div>}
-      </header>
-      <div className="space-y-4 px-4 py-3">
+    <header className="flex flex-wrap items-baseline gap-x-4 gap-y-1 border-b border-rule bg-paper-deep px-4 py-2">
+      <Heading id={headingId} className="font-serif text-base font-bold">
+        {head.title}
+        {head.name && <span className="ml-2 font-mono text-sm font-normal text-ink-soft">{head.name}</span>}
+      </Heading>
+      <p className="text-sm text-ink-soft">
+        <span className="font-mono">{head.word}</span>
+        {` · ${SYSTEM_TEXT[head.unitSystem]} · lines ${head.line}–${head.endLine}`}
+      </p>
+      {actions && <div className="ml-auto no-print">{actions}</div>}
+    </header>
+  );
+}
+
+/** Props of {@link BlockPanel}. */
+export interface BlockPanelProps {
+  readonly head: BlockHead;
+  /** The body: usually a {@link BlockBody}. */
+  readonly children?: ReactNode;
+  readonly lead?: ReactNode;
+  readonly headingLevel?: 2 | 3 | 4 | 5;
+  readonly actions?: ReactNode;
+}
+
+/** The frame and header of a block's panel, with its body inside. */
+export function BlockPanel({ head, children, lead, headingLevel = 3, actions }: BlockPanelProps) {
+  const headingId = `${useId()}h`;
+  return (
+    <section aria-labelledby={headingId} data-block-index={head.index} data-status={head.status} className={PANEL_CLASS}>
+      <BlockHeader head={head} headingId={headingId} headingLevel={headingLevel} actions={actions} />
+      <div className={PANEL_BODY_CLASS}>
         {lead}
-        {failed && (
-          <div className="notice notice-fault">
-            <p className="font-semibold">This block cannot be calculated yet.</p>
-            <ul className="mt-1 list-none space-y-0.5 p-0">
-              {block.errors.map((e, k) => (
-                <li key={k}>
-                  <span className="font-semibold">{`line ${e.line}:`}</span>
-                  {` ${e.message}`}
-                  {e.hint && <span className="text-ink-soft">{` — ${e.hint}`}</span>}
-                </li>
-              ))}
-            </ul>
-          </div>
-        )}
-        {!failed && block.outputs.length > 0 && <ResultsTable block={block} />}
-        {block.warnings.length > 0 && (
-          <div className="notice notice-caution">
-            <p className="font-semibold">{block.warnings.length === 1 ? 'Warning' : 'Warnings'}</p>
-            <ul className="mt-1 list-none space-y-0.5 p-0">
-              {block.warnings.map((w, k) => (
-                <li key={k} data-code={w.code}>
-                  {w.line !== undefined && <span className="font-semibold">{`line ${w.line}: `}</span>}
-                  {w.message}
-                </li>
-              ))}
-            </ul>
-          </div>
-        )}
-        {showInputs && block.inputs.length > 0 && <Inputs inputs={block.inputs} />}
-        {!failed && block.table && block.table.rows.length > 0 && <RowsTable block={block} maxRows={maxRows} />}
         {children}
-        <p className="text-xs text-ink-faint">
-          {`Solver ${block.solverVersion}`}
-          {block.methodNote && (
-            <>
-              {' · '}
-              <a href={`/methods/${encodeURIComponent(block.methodNote)}`}>method note</a>
-            </>
-          )}
-        </p>
       </div>
     </section>
+  );
+}
+
+/** Props of {@link BlockBody}. */
+export interface BlockBodyProps {
+  readonly block: BlockResult;
+  /** Shown under the tables: usually `<BlockChart block={block} />`. */
+  readonly children?: ReactNode;
+  readonly showInputs?: boolean;
+  readonly maxRows?: number;
+}
+
+/**
+ * The body of a block's panel: errors, results, warnings, inputs, rows, chart and the
+ * solver line. Spaced by its own wrapper, so it can be rendered apart from its panel (the
+ * reading page renders it once per revision and serves it as static HTML beside the island).
+ */
+export function BlockBody({ block, children, showInputs = true, maxRows = 400 }: BlockBodyProps) {
+  const failed = block.status === 'error';
+  return (
+    <div className="space-y-4">
+      {failed && (
+        <div className="notice notice-fault">
+          <p className="font-semibold">This block cannot be calculated yet.</p>
+          <ul className="mt-1 list-none space-y-0.5 p-0">
+            {block.errors.map((e, k) => (
+              <li key={k}>
+                <span className="font-semibold">{`line ${e.line}:`}</span>
+                {` ${e.message}`}
+                {e.hint && <span className="text-ink-soft">{` — ${e.hint}`}</span>}
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+      {!failed && block.outputs.length > 0 && <ResultsTable block={block} />}
+      {block.warnings.length > 0 && (
+        <div className="notice notice-caution">
+          <p className="font-semibold">{block.warnings.length === 1 ? 'Warning' : 'Warnings'}</p>
+          <ul className="mt-1 list-none space-y-0.5 p-0">
+            {block.warnings.map((w, k) => (
+              <li key={k} data-code={w.code}>
+                {w.line !== undefined && <span className="font-semibold">{`line ${w.line}: `}</span>}
+                {w.message}
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+      {showInputs && block.inputs.length > 0 && <Inputs inputs={block.inputs} />}
+      {!failed && block.table && block.table.rows.length > 0 && <RowsTable block={block} maxRows={maxRows} />}
+      {children}
+      <p className="text-xs text-ink-faint">
+        {`Solver ${block.solverVersion}`}
+        {block.methodNote && (
+          <>
+            {' · '}
+            <a href={`/methods/${encodeURIComponent(block.methodNote)}`}>method note</a>
+          </>
+        )}
+      </p>
+    </div>
+  );
+}
+
+/** The results panel of one block; see the module comment. */
+export function BlockResults({ block, children, lead, headingLevel = 3, actions, showInputs = true, maxRows = 400 }: BlockResultsProps) {
+  return (
+    <BlockPanel head={blockHead(block)} lead={lead} headingLevel={headingLevel} actions={actions}>
+      <BlockBody block={block} showInputs={showInputs} maxRows={maxRows}>
+        {children}
+      </BlockBody>
+    </BlockPanel>
   );
 }

@@ -1,25 +1,33 @@
 /**
- * Client island of the reading page: a block's results with a "What if…" form of its
- * numeric inputs. Changing a value re-runs that block alone in the browser (the shared
- * solver, no request, nothing saved); a badge says the panel shows what-if values until
- * Reset. Carries no markdown pipeline: only the block language and the solver.
+ * Client island of the reading page: the header of a block's panel with a "What if…" form
+ * of its numeric inputs. The panel's frame, its header and its saved results body are
+ * static HTML from the server (rendered once per revision); the island renders in the
+ * browser over the static header, adding the button, and, once the form is opened, a live
+ * body that re-runs the block alone in the browser (the shared solver, no
+ * request, nothing saved). The live body carries `data-what-if-live`, and a stylesheet rule
+ * hides the saved body beside it. A badge says the panel shows what-if values until Reset.
+ * Carries no markdown pipeline: only the block language and the solver.
  */
 import { useId, useMemo, useState } from 'react';
 import type { BlockResult } from '../../lib/calc';
 import { BlockChart } from './BlockChart';
-import { BlockResults } from './BlockResults';
+import { BlockBody, BlockHeader, PANEL_BODY_CLASS, type BlockHead } from './BlockResults';
 import { SymbolText } from './typeset';
-import { evaluateWhatIf, whatIfPlan, whatIfSource, typedLiteral, type WhatIfField } from './whatIf';
+import { evaluateWhatIf, whatIfSource, typedLiteral, type WhatIfField, type WhatIfPlan } from './whatIf';
 
 /** Props of {@link WhatIfBlock}. */
 export interface WhatIfBlockProps {
-  /** The block's saved result (from the server's evaluation). */
-  readonly block: BlockResult;
+  /** The block's header fields. */
+  readonly head: BlockHead;
+  /** The form: from `whatIfPlan` of the saved result, computed on the server. */
+  readonly plan: WhatIfPlan;
   /** The block as written in the case, opening fence to closing fence. */
   readonly source: string;
+  /** Id of the heading, named by the static frame's `aria-labelledby`. */
+  readonly headingId: string;
   /** Heading level of the block title (default 3). */
   readonly headingLevel?: 2 | 3 | 4 | 5;
-  /** Draw the block's chart (default true). */
+  /** Draw the block's chart in what-if results (default true). */
   readonly chart?: boolean;
 }
 
@@ -53,29 +61,23 @@ function Field({ field, value, invalid, onChange, id }: { field: WhatIfField; va
   );
 }
 
-/** A block's results with a what-if form; see the module comment. */
-export function WhatIfBlock({ block, source, headingLevel = 3, chart = true }: WhatIfBlockProps) {
+/** A block's header with a what-if form and live body; see the module comment. */
+export function WhatIfBlock({ head, plan, source, headingId, headingLevel = 3, chart = true }: WhatIfBlockProps) {
   const id = useId();
-  const plan = useMemo(() => whatIfPlan(block, source), [block, source]);
   const initial = useMemo(() => Object.fromEntries(plan.fields.map((f) => [f.name, f.initial])), [plan]);
   const [values, setValues] = useState<Record<string, string>>(initial);
   const [open, setOpen] = useState(false);
   const changed = plan.fields.some((f) => (values[f.name] ?? f.initial) !== f.initial);
-  const invalid = new Set(plan.fields.filter((f) => values[f.name] !== f.initial && typedLiteral(values[f.name] ?? '', f.quantity, block.unitSystem) === null).map((f) => f.name));
+  const live = open || changed;
+  const invalid = new Set(plan.fields.filter((f) => values[f.name] !== f.initial && typedLiteral(values[f.name] ?? '', f.quantity, head.unitSystem) === null).map((f) => f.name));
   const shown = useMemo(() => {
-    if (!changed) return block;
-    const text = whatIfSource(source, plan, values, block.unitSystem);
-    return text === null ? null : evaluateWhatIf(block, text);
-  }, [changed, block, source, plan, values]);
+    if (!live) return null;
+    const text = whatIfSource(source, plan, values, head.unitSystem);
+    return text === null ? null : evaluateWhatIf(head, text);
+  }, [live, head, source, plan, values]);
   // While a field does not read as a number, keep showing the last complete answer.
-  const [lastGood, setLastGood] = useState<BlockResult>(block);
+  const [lastGood, setLastGood] = useState<BlockResult | null>(null);
   if (shown && shown !== lastGood) setLastGood(shown);
-  // A new saved result (the case was re-run) starts the form again from its values.
-  const [saved, setSaved] = useState(block);
-  if (saved !== block) {
-    setSaved(block);
-    setValues(initial);
-  }
   const result = shown ?? lastGood;
   const reset = () => setValues(initial);
 
@@ -105,13 +107,25 @@ export function WhatIfBlock({ block, source, headingLevel = 3, chart = true }: W
   );
 
   return (
-    <BlockResults
-      block={result}
-      headingLevel={headingLevel}
-      actions={actions || undefined}
-      lead={badge || form ? <>{badge}{form}</> : undefined}
-    >
-      {chart && <BlockChart block={result} />}
-    </BlockResults>
+    <>
+      <BlockHeader head={head} headingId={headingId} headingLevel={headingLevel} actions={actions || undefined} />
+      {live && (
+        <div className={PANEL_BODY_CLASS} data-what-if-live="">
+          {badge}
+          {form}
+          {result && <BlockBody block={result}>{chart && <BlockChart block={result} />}</BlockBody>}
+        </div>
+      )}
+    </>
   );
+}
+
+/**
+ * The reading page's island: {@link WhatIfBlock} with its props as one JSON string. Astro
+ * serialises island props value by value on every request; a string prepared once per
+ * revision (see `readingBody`) costs next to nothing.
+ */
+export function WhatIfIsland({ payload }: { payload: string }) {
+  const props = useMemo(() => JSON.parse(payload) as WhatIfBlockProps, [payload]);
+  return <WhatIfBlock {...props} />;
 }

@@ -124,7 +124,7 @@ export function whatIfSource(source: string, plan: WhatIfPlan, values: Readonly<
  * Evaluates the block text alone, on the same line numbers as in the case (blank lines are
  * put in front), and keeps the block's index in the case.
  */
-export function evaluateWhatIf(block: BlockResult, text: string): BlockResult | null {
+export function evaluateWhatIf(block: Pick<BlockResult, 'line' | 'index'>, text: string): BlockResult | null {
   const result = evaluateCase('\n'.repeat(Math.max(0, block.line - 1)) + text).blocks[0];
   return result ? { ...result, index: block.index } : null;
 }

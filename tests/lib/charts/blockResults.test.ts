@@ -107,7 +107,7 @@ describe('BlockResults', () => {
 
   it('puts children (the chart) inside the panel and links the method note', () => {
     const withChart = renderToStaticMarkup(h(BlockResults, { block: JUMP }, h('figure', { id: 'chart' })));
-    expect(withChart).toMatch(/<figure id="chart"><\/figure><p class="text-xs text-ink-faint">Solver [\d.]+ · <a href="\/methods\/hydraulic-jump">method note<\/a><\/p><\/div><\/section>$/);
+    expect(withChart).toMatch(/<figure id="chart"><\/figure><p class="text-xs text-ink-faint">Solver [\d.]+ · <a href="\/methods\/hydraulic-jump">method note<\/a><\/p><\/div><\/div><\/section>$/);
   });
 });
 

@@ -1,6 +1,7 @@
 import { createElement as h } from 'react';
 import { renderToStaticMarkup } from 'react-dom/server';
 import { describe, expect, it } from 'vitest';
+import { blockHead } from '@/components/blocks/BlockResults';
 import { WhatIfBlock } from '@/components/blocks/WhatIfBlock';
 import { evaluateWhatIf, siLiteral, typedLiteral, whatIfPlan, whatIfSource } from '@/components/blocks/whatIf';
 import { BROKEN, JUMP, sourceOf, TAILWATER, US_JUMP } from './fixtures';
@@ -89,18 +90,24 @@ describe('literals', () => {
 });
 
 describe('WhatIfBlock (server render)', () => {
-  it('renders the saved results with a What if… button, no badge and no form until opened', () => {
-    const html = renderToStaticMarkup(h(WhatIfBlock, { block: JUMP, source: sourceOf(JUMP) }));
+  const props = (block: typeof JUMP) => ({ head: blockHead(block), headingId: 'h1', plan: whatIfPlan(block, sourceOf(block)), source: sourceOf(block) });
+
+  it('draws only the header with a What if… button until opened: no live body, badge or form', () => {
+    const html = renderToStaticMarkup(h(WhatIfBlock, props(JUMP)));
+    expect(html).toMatch(/^<header /);
+    expect(html).toContain('id="h1"');
+    expect(html).toContain(JUMP.title);
     expect(html).toContain('What if…');
     expect(html).toContain('aria-expanded="false"');
+    expect(html).not.toContain('data-what-if-live');
     expect(html).not.toContain('Not saved');
     expect(html).not.toContain('<form');
-    expect(html).toContain('<svg ');
+    // The saved results and charts are the page's static body, not the island's.
+    expect(html).not.toContain('<svg ');
   });
 
-  it('renders a block with errors without a what-if button', () => {
-    const html = renderToStaticMarkup(h(WhatIfBlock, { block: BROKEN, source: sourceOf(BROKEN) }));
+  it('offers no button when the plan has no fields', () => {
+    const html = renderToStaticMarkup(h(WhatIfBlock, props(BROKEN)));
     expect(html).not.toContain('What if…');
-    expect(html).toContain('line 37:');
   });
 });

@@ -1,0 +1,162 @@
+/**
+ * The body of a case's reading page, rendered once per revision and kept in memory.
+ *
+ * A revision's text never changes (a database trigger refuses updates), so its rendering
+ * depends only on the revision and the solver: the cache key is the revision id and
+ * `SOLVER_VERSION`. Each entry holds the sanitised HTML between blocks, each block's saved
+ * results rendered to static HTML (tables, warnings, charts), and the small props of the
+ * what-if island of each block that has inputs to change, with the header it replaces. A
+ * page view then costs a lookup instead of the markdown pipeline, the solver and a React
+ * render of every chart: the islands render in the browser only (`client:only`), over
+ * their static header.
+ *
+ * Server only (react-dom/server). The cache is bounded by the characters it holds.
+ */
+import { LRUCache } from 'lru-cache';
+import { renderToStaticMarkup } from 'react-dom/server';
+import { renderCase } from '../../lib/markdown';
+import { SOLVER_VERSION } from '../../lib/solver';
+import { BlockChart } from '../blocks/BlockChart';
+import { BlockBody, BlockHeader, blockHead, BlockResults, PANEL_BODY_CLASS, PANEL_CLASS, type BlockHead } from '../blocks/BlockResults';
+import type { WhatIfBlockProps } from '../blocks/WhatIfBlock';
+import { whatIfPlan } from '../blocks/whatIf';
+
+/** One piece of the reading body, in document order. */
+export type ReadingPart =
+  | { readonly type: 'html'; readonly html: string }
+  /** A block without inputs to change (or with errors): its whole panel, static. */
+  | { readonly type: 'panel'; readonly html: string }
+  /**
+   * A block with a what-if form: the island's props (it draws the header), the static
+   * header it replaces, and the saved results body, static.
+   */
+  | {
+      readonly type: 'what-if';
+      readonly head: BlockHead;
+      readonly headingId: string;
+      /** The island's props (`WhatIfBlockProps`) as JSON, for `WhatIfIsland`. */
+      readonly payload: string;
+      /** The header without the button: shown until the island has loaded (and without script). */
+      readonly headerHtml: string;
+      readonly bodyHtml: string;
+    };
+
+/** The rendered body of one revision. */
+export interface ReadingBody {
+  readonly parts: readonly ReadingPart[];
+}
+
+/**
+ * What the page writes, in order: HTML, and the islands within it. An HTML chunk may open
+ * a block's frame that the chunk after its island closes: the page writes chunks as they
+ * are, so the document is whole once all are written. As few chunks as there are islands
+ * (plus one), because every expression an Astro page renders has a cost per request.
+ */
+export type ReadingChunk =
+  /**
+   * HTML as UTF-8 bytes: Astro writes bytes given to `set:html` as they are, where a
+   * string is joined to its neighbours and encoded again on every request (slowly, once a
+   * page holds any character beyond Latin-1, as every case with a subscript does).
+   */
+  | { readonly type: 'html'; readonly html: Uint8Array }
+  | { readonly type: 'island'; readonly payload: string; readonly headerHtml: string };
+
+/** Most bytes (and characters) of rendered HTML kept. */
+const MAX_CHARACTERS = 48_000_000;
+
+const cache = new LRUCache<string, readonly ReadingChunk[]>({
+  maxSize: MAX_CHARACTERS,
+  sizeCalculation: (chunks) => Math.max(1, chunks.reduce((n, c) => n + (c.type === 'island' ? c.payload.length + c.headerHtml.length : c.html.byteLength), 0)),
+});
+
+/**
+ * Renders `body` (the markdown of one revision) for the reading page. Never throws: the
+ * pipeline falls back to escaped text, and a block whose rendering fails shows a notice
+ * instead of taking the page down.
+ */
+export function renderReadingBody(body: string): ReadingBody {
+  const rendered = renderCase(body);
+  const lines = body.split(/\r\n|\r|\n/);
+  const parts: ReadingPart[] = [];
+  for (const segment of rendered.segments) {
+    if (segment.type === 'html') {
+      parts.push(segment);
+      continue;
+    }
+    const block = rendered.evaluation.blocks[segment.index];
+    if (!block) continue;
+    // React ids (headings, chart clip paths) must not collide between blocks of one page.
+    const options = { identifierPrefix: `b${block.index}-` };
+    try {
+      const source = lines.slice(block.line - 1, block.endLine).join('\n');
+      const plan = whatIfPlan(block, source);
+      if (plan.fields.length === 0) {
+        const html = renderToStaticMarkup(
+          <BlockResults block={block}>
+            <BlockChart block={block} />
+          </BlockResults>,
+          options,
+        );
+        parts.push({ type: 'panel', html });
+      } else {
+        const bodyHtml = renderToStaticMarkup(
+          <BlockBody block={block}>
+            <BlockChart block={block} />
+          </BlockBody>,
+          options,
+        );
+        const head = blockHead(block);
+        const headingId = `block-${block.index}-title`;
+        const props: WhatIfBlockProps = { head, headingId, plan, source };
+        const headerHtml = renderToStaticMarkup(<BlockHeader head={head} headingId={headingId} />);
+        parts.push({ type: 'what-if', head, headingId, payload: JSON.stringify(props), headerHtml, bodyHtml });
+      }
+    } catch {
+      parts.push({
+        type: 'panel',
+        html: `<p class="notice notice-fault">The results of block “${escapeHtml(block.title)}” (line ${block.line}) could not be drawn. The text of the case is unaffected.</p>`,
+      });
+    }
+  }
+  return { parts };
+}
+
+function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+}
+
+/**
+ * The chunks of `parts`: prose as it is, every block in a `not-prose` wrapper, and each
+ * what-if block in its panel frame (class `PANEL_CLASS`) around its island and its saved
+ * body (`block-saved`, which a stylesheet rule hides while the island shows a live body).
+ */
+export function readingChunks(parts: readonly ReadingPart[]): ReadingChunk[] {
+  const chunks: ReadingChunk[] = [];
+  const encoder = new TextEncoder();
+  let html = '';
+  for (const part of parts) {
+    if (part.type === 'html') html += part.html;
+    else if (part.type === 'panel') html += `<div class="not-prose my-6">${part.html}</div>`;
+    else {
+      html += `<div class="not-prose my-6"><section class="${PANEL_CLASS}" aria-labelledby="${part.headingId}" data-block-index="${part.head.index}" data-status="${part.head.status}">`;
+      chunks.push({ type: 'html', html: encoder.encode(html) });
+      chunks.push({ type: 'island', payload: part.payload, headerHtml: part.headerHtml });
+      html = `<div class="${PANEL_BODY_CLASS} block-saved">${part.bodyHtml}</div></section></div>`;
+    }
+  }
+  if (html) chunks.push({ type: 'html', html: encoder.encode(html) });
+  return chunks;
+}
+
+/**
+ * The reading body of revision `revisionId` (whose markdown is `body`) as page chunks, from
+ * the cache when this server has rendered it before with the same solver.
+ */
+export function readingBody(revisionId: string, body: string): readonly ReadingChunk[] {
+  const key = `${revisionId}@${SOLVER_VERSION}`;
+  const hit = cache.get(key);
+  if (hit) return hit;
+  const made = readingChunks(renderReadingBody(body).parts);
+  cache.set(key, made);
+  return made;
+}
