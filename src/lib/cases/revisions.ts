@@ -1,6 +1,6 @@
 import { and, desc, eq } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
-import { caseFile, caseRevision } from '../../db/schema';
+import { caseRevision } from '../../db/schema';
 import { diffRevisions, type TextDiff } from './diff';
 import { findRevision, revisionAuthor, revisionSummaryColumns } from './rows';
 import type { CaseRevisionDetail, RevisionSummary } from './types';
@@ -10,17 +10,15 @@ import type { CaseRevisionDetail, RevisionSummary } from './types';
  * the case is not the firm's (or does not exist).
  */
 export async function listRevisions(database: Queryable, firmId: string, caseId: string): Promise<RevisionSummary[] | null> {
-  const [owner] = await database
-    .select({ id: caseFile.id })
-    .from(caseFile)
-    .where(and(eq(caseFile.id, caseId), eq(caseFile.firmId, firmId)));
-  if (!owner) return null;
-  return database
+  // Every case has its first revision from the moment it exists: no rows means no such case
+  // in this firm, so one query answers both.
+  const rows = await database
     .select(revisionSummaryColumns)
     .from(caseRevision)
     .innerJoin(revisionAuthor, eq(revisionAuthor.id, caseRevision.authorId))
     .where(and(eq(caseRevision.firmId, firmId), eq(caseRevision.caseId, caseId)))
     .orderBy(desc(caseRevision.number));
+  return rows.length > 0 ? rows : null;
 }
 
 /** One revision of a case of the firm, with its body and stored results, or null. */

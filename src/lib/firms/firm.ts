@@ -1,5 +1,5 @@
-import { and, asc, eq } from 'drizzle-orm';
-import type { Queryable } from '../../db/client';
+import { and, asc, eq, sql } from 'drizzle-orm';
+import type { Database } from '../../db/client';
 import { member, organization } from '../../db/schema';
 import { asRole, type Role } from '../auth/roles';
 
@@ -17,16 +17,9 @@ export interface FirmContext {
   role: Role;
 }
 
-/**
- * The firm a signed-in user acts in: the session's active firm if they are still a member
- * there, otherwise their oldest membership. Null when they belong to no firm.
- */
-export async function resolveFirm(
-  database: Queryable,
-  userId: string,
-  activeFirmId: string | null | undefined,
-): Promise<FirmContext | null> {
-  const rows = await database
+function prepare(database: Database, withActiveFirm: boolean) {
+  const userId = eq(member.userId, sql.placeholder('userId'));
+  return database
     .select({
       id: organization.id,
       name: organization.name,
@@ -36,9 +29,28 @@ export async function resolveFirm(
     })
     .from(member)
     .innerJoin(organization, eq(organization.id, member.organizationId))
-    .where(activeFirmId ? and(eq(member.userId, userId), eq(member.organizationId, activeFirmId)) : eq(member.userId, userId))
+    .where(withActiveFirm ? and(userId, eq(member.organizationId, sql.placeholder('firmId'))) : userId)
     .orderBy(asc(member.createdAt))
-    .limit(1);
+    .limit(1)
+    .prepare(withActiveFirm ? 'resolve_active_firm' : 'resolve_first_firm');
+}
+
+type Statements = { active: ReturnType<typeof prepare>; first: ReturnType<typeof prepare> };
+// Every request runs this: prepared once per client, planned once per connection.
+const prepared = new WeakMap<Database, Statements>();
+
+/**
+ * The firm a signed-in user acts in: the session's active firm if they are still a member
+ * there, otherwise their oldest membership. Null when they belong to no firm. Read on
+ * every request, so a removal or a role change takes effect at once.
+ */
+export async function resolveFirm(database: Database, userId: string, activeFirmId: string | null | undefined): Promise<FirmContext | null> {
+  let statements = prepared.get(database);
+  if (!statements) {
+    statements = { active: prepare(database, true), first: prepare(database, false) };
+    prepared.set(database, statements);
+  }
+  const rows = activeFirmId ? await statements.active.execute({ userId, firmId: activeFirmId }) : await statements.first.execute({ userId });
   const row = rows[0];
   if (!row) return activeFirmId ? resolveFirm(database, userId, null) : null;
   const role = asRole(row.role);
