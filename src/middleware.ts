@@ -30,8 +30,12 @@ export const onRequest = defineMiddleware(async (context, next) => {
   if (context.isPrerendered) return next();
 
   const { pathname } = context.url;
+  // Cookies better-auth sets while reading the session (a renewed session cache, a cleared
+  // stale one): passed on with whatever response this request ends with.
+  let sessionCookies: string[] = [];
   if (!pathname.startsWith('/api/auth/')) {
-    const found = await auth().api.getSession({ headers: context.request.headers });
+    const { headers, response: found } = await auth().api.getSession({ headers: context.request.headers, returnHeaders: true });
+    sessionCookies = headers.getSetCookie();
     if (found) {
       context.locals.user = found.user;
       context.locals.session = found.session;
@@ -39,6 +43,12 @@ export const onRequest = defineMiddleware(async (context, next) => {
     }
   }
 
+  return finish(await guard(context, next), sessionCookies);
+});
+
+/** The response for a request whose session is resolved: a redirect, a JSON error, or the route's. */
+async function guard(context: Parameters<Parameters<typeof defineMiddleware>[0]>[0], next: () => Promise<Response>): Promise<Response> {
+  const { pathname } = context.url;
   if (!isPublic(pathname)) {
     const isApi = pathname.startsWith('/api/');
     if (!context.locals.user) {
@@ -48,10 +58,18 @@ export const onRequest = defineMiddleware(async (context, next) => {
     }
     if (!context.locals.firm && isApi) return errors.noFirm();
   }
+  return next();
+}
 
-  const response = await next();
+/** Adds the protective headers and the session cookies to `response`. */
+function finish(response: Response, sessionCookies: readonly string[]): Response {
   for (const [name, value] of Object.entries(SECURITY_HEADERS)) {
     if (!response.headers.has(name)) response.headers.set(name, value);
   }
+  // A route that sets its own session cookies (sign-in, sign-out) has the last word.
+  const own = response.headers.getSetCookie().map((c) => c.slice(0, c.indexOf('=')));
+  for (const cookie of sessionCookies) {
+    if (!own.includes(cookie.slice(0, cookie.indexOf('=')))) response.headers.append('set-cookie', cookie);
+  }
   return response;
-});
+}

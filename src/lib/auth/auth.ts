@@ -6,6 +6,9 @@ import * as schema from '../../db/schema';
 import { config } from '../config';
 import { accessControl, authRoles } from './roles';
 
+/** How long a request may trust the session cookie cache before reading the session row again. */
+export const SESSION_CACHE_SECONDS = 60;
+
 /** Minimum password length for every account (temporary passwords included). */
 export const MIN_PASSWORD_LENGTH = 10;
 
@@ -28,6 +31,12 @@ function createAuth() {
     session: {
       expiresIn: 60 * 60 * 24 * 7,
       updateAge: 60 * 60 * 24,
+      // A signed copy of the session and user in a second cookie, trusted for a minute,
+      // spares two queries per request. The price: a session ended elsewhere stays usable
+      // for up to that minute with a copied cookie pair. Firm membership and role are still
+      // read from the database on every request (resolveFirm), so removing someone from a
+      // firm or changing their role takes effect at once.
+      cookieCache: { enabled: true, maxAge: SESSION_CACHE_SECONDS },
     },
     rateLimit: {
       enabled: settings.SEQUENT_RATE_LIMIT === 'on',
