@@ -33,7 +33,7 @@ for (const c of cases) {
 const url = `${base}/cases/${largest.id}`;
 
 // Warm up (JIT, caches) before measuring the steady state.
-for (let i = 0; i < 300; i += 1) await (await fetch(url, { headers })).text();
+for (let i = 0; i < 1000; i += 1) await (await fetch(url, { headers })).text();
 // The load comes from autocannon (raw sockets, keep-alive): Node's fetch costs about 1.5 ms of
 // client CPU per 100-KB page, which on a 2-core machine would be counted as server time.
 const times = [];
