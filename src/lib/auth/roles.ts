@@ -2,7 +2,7 @@
  * Roles inside a firm and what each may do. Pure: shared by pages, API routes and tests.
  *
  * - engineer: writes cases and submits them for review;
- * - reviewer: a senior engineer who checks, returns or approves cases (and writes cases too);
+ * - reviewer: a senior engineer who checks, returns, approves or withdraws cases (and writes cases too);
  * - admin: manages the firm's people and roles and withdraws cases (and writes cases too).
  */
 import { createAccessControl } from 'better-auth/plugins/access';
@@ -40,7 +40,7 @@ export const accessControl = createAccessControl(statements);
 /** Each role's permissions, as better-auth roles. */
 export const authRoles = {
   engineer: accessControl.newRole({ case: ['create'], member: ['read'] }),
-  reviewer: accessControl.newRole({ case: ['create', 'review'], member: ['read'] }),
+  reviewer: accessControl.newRole({ case: ['create', 'review', 'withdraw'], member: ['read'] }),
   admin: accessControl.newRole({
     case: ['create', 'withdraw'],
     member: ['read', 'create', 'update'],

@@ -16,6 +16,8 @@ describe('can(role, resource, action)', () => {
     ['engineer', 'member', 'update', false],
     ['engineer', 'member', 'create', false],
     ['reviewer', 'case', 'review', true],
+    ['reviewer', 'case', 'withdraw', true],
+    ['engineer', 'case', 'withdraw', false],
     ['reviewer', 'member', 'update', false],
     ['admin', 'member', 'update', true],
     ['admin', 'member', 'create', true],
