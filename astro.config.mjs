@@ -4,8 +4,11 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwindcss from '@tailwindcss/vite';
 import { defineConfig } from 'astro/config';
-import rehypeKatex from 'rehype-katex';
 import remarkMath from 'remark-math';
+import { renderMath } from './src/lib/markdown/renderMath.ts';
+
+/** Method notes and guides typeset math with the case pipeline's KaTeX (the stylesheet's version). */
+const rehypeCaseMath = () => (/** @type {import('hast').Root} */ tree) => renderMath(tree);
 
 // Host names the server believes in the Host header (Astro ignores any other, which would
 // break the same-origin check of form posts). Loopback for the local app and tests, plus
@@ -19,7 +22,7 @@ export default defineConfig({
   adapter: node({ mode: 'middleware' }),
   integrations: [react(), mdx()],
   // Method notes and guides in content/ are markdown with KaTeX math.
-  markdown: { remarkPlugins: [remarkMath], rehypePlugins: [rehypeKatex], shikiConfig: { theme: 'github-light' } },
+  markdown: { remarkPlugins: [remarkMath], rehypePlugins: [rehypeCaseMath], shikiConfig: { theme: 'github-light' } },
   server: { host: '127.0.0.1', port: 4321 },
   // Rejects cross-site form posts to on-demand pages (CSRF); JSON APIs rely on CORS.
   security: { checkOrigin: true, allowedDomains },
