@@ -45,6 +45,8 @@ export const caseFile = pgTable(
       .references(() => user.id, { onDelete: 'restrict' }),
     state: text('state').$type<CaseState>().notNull().default('draft'),
     latestRevision: integer('latest_revision').notNull(),
+    /** The revision colleagues rely on (null until first published); a new draft leaves it standing. */
+    publishedRevision: integer('published_revision'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },

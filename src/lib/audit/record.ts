@@ -2,7 +2,18 @@ import type { Queryable } from '../../db/client';
 import { auditEvent } from '../../db/schema';
 
 /** Every kind of event the audit trail records. */
-export type AuditAction = 'member.added' | 'member.role_changed' | 'firm.created' | 'case.created' | 'case.saved';
+export type AuditAction =
+  | 'member.added'
+  | 'member.role_changed'
+  | 'firm.created'
+  | 'case.created'
+  | 'case.saved'
+  | 'case.submitted'
+  | 'case.returned'
+  | 'case.approved'
+  | 'case.published'
+  | 'case.superseded'
+  | 'case.withdrawn';
 
 /** One event to append. */
 export interface AuditEntry {

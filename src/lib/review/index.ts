@@ -1,5 +1,6 @@
 /**
- * Peer review (`@/lib/review`): the workflow's decisions, pure. The database services and
- * e-mail come with the rest of the review work.
+ * Peer review (`@/lib/review`): the workflow's decisions (pure, `./transitions`, which the
+ * browser may import directly) and the database services that apply them.
  */
 export { ACTION_FROM, afterEdit, decideReview, REVIEW_ACTIONS, type ReviewAction, type ReviewActor, type ReviewDecision, type ReviewRefusal, type ReviewSituation } from './transitions';
+export { actOnCase, type ReviewRequest, type ReviewResult } from './services';

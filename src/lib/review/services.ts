@@ -1,0 +1,136 @@
+/**
+ * The review transitions against the database. Each runs in one transaction that first
+ * locks the case row (`SELECT … FOR UPDATE`), reads what the decision needs, lets
+ * `decideReview` decide, then writes the new state, the round or approval and the audit
+ * events together. Two concurrent approvals or submits are serialised by the lock: the
+ * second sees the state the first left and is refused with 409.
+ */
+import { randomUUID } from 'node:crypto';
+import { and, eq, gt, inArray, isNull, sql } from 'drizzle-orm';
+import type { Database, Queryable } from '../../db/client';
+import { approval, caseFile, caseRevision, firmReviewSetting, member, reviewRound } from '../../db/schema';
+import { recordAudit } from '../audit';
+import type { Role } from '../auth/roles';
+import { evaluateCase } from '../calc';
+import type { CaseState } from '../cases/states';
+import { SOLVER_VERSION } from '../solver';
+import { decideReview, type ReviewAction, type ReviewRefusal } from './transitions';
+
+/** A review action as a route hands it over (already validated). */
+export interface ReviewRequest {
+  firmId: string;
+  caseId: string;
+  actor: { userId: string; role: Role };
+  action: ReviewAction;
+  /** Comments of a return, reason of a withdrawal. */
+  reason?: string;
+  /** With submit: the reviewers asked for (empty or absent: the firm's reviewer pool). */
+  reviewerIds?: readonly string[];
+}
+
+/** The outcome of {@link actOnCase}. */
+export type ReviewResult =
+  | { ok: true; state: CaseState; publishes: boolean; revision: number; approvals: number; requiredApprovals: number }
+  | { ok: false; reason: ReviewRefusal | 'not_found' | 'unknown_reviewer'; status: 403 | 404 | 409 | 422; message: string };
+
+async function requiredApprovalsOf(tx: Queryable, firmId: string): Promise<number> {
+  const [setting] = await tx.select({ n: firmReviewSetting.requiredApprovals }).from(firmReviewSetting).where(eq(firmReviewSetting.firmId, firmId));
+  return setting?.n ?? 1;
+}
+
+/** Applies `request` to the case; see the module comment. Never throws for a refused action. */
+export async function actOnCase(database: Database, request: ReviewRequest): Promise<ReviewResult> {
+  return database.transaction(async (tx): Promise<ReviewResult> => {
+    const [current] = await tx
+      .select()
+      .from(caseFile)
+      .where(and(eq(caseFile.id, request.caseId), eq(caseFile.firmId, request.firmId)))
+      .for('update');
+    if (!current) return { ok: false, reason: 'not_found', status: 404, message: 'No such case in this firm.' };
+
+    const [round] = await tx
+      .select()
+      .from(reviewRound)
+      .where(and(eq(reviewRound.caseId, current.id), isNull(reviewRound.outcome)));
+    const standing = round
+      ? await tx
+          .select({ reviewerId: approval.reviewerId })
+          .from(approval)
+          .where(and(eq(approval.roundId, round.id), eq(approval.revisionNumber, current.latestRevision), isNull(approval.cancelledAt)))
+      : [];
+    // Everyone who wrote a revision since the last publication edited the version under review.
+    const editors = await tx
+      .selectDistinct({ id: caseRevision.authorId })
+      .from(caseRevision)
+      .where(and(eq(caseRevision.caseId, current.id), gt(caseRevision.number, current.publishedRevision ?? 0)));
+    const requiredApprovals = await requiredApprovalsOf(tx, request.firmId);
+
+    const decision = decideReview(
+      request.action,
+      request.actor,
+      {
+        state: current.state,
+        authorId: current.authorId,
+        editorIds: editors.map((e) => e.id),
+        requestedReviewerIds: round?.reviewerIds ?? [],
+        approverIds: standing.map((a) => a.reviewerId),
+        requiredApprovals,
+      },
+      { reason: request.reason },
+    );
+    if (!decision.ok) return decision;
+
+    const now = new Date();
+    const audit = (action: Parameters<typeof recordAudit>[1]['action'], details: Record<string, unknown> = {}) =>
+      recordAudit(tx, { firmId: request.firmId, actorUserId: request.actor.userId, action, targetType: 'case', targetId: current.id, details: { revision: current.latestRevision, ...details } });
+
+    if (request.action === 'submit') {
+      const reviewerIds = [...new Set(request.reviewerIds ?? [])];
+      if (reviewerIds.length > 0) {
+        const found = await tx
+          .select({ userId: member.userId })
+          .from(member)
+          .where(and(eq(member.organizationId, request.firmId), eq(member.role, 'reviewer'), inArray(member.userId, reviewerIds)));
+        const editorIds = new Set(editors.map((e) => e.id));
+        if (found.length !== reviewerIds.length || reviewerIds.some((id) => editorIds.has(id))) {
+          return { ok: false, reason: 'unknown_reviewer', status: 422, message: 'Choose reviewers of this firm who neither wrote nor edited the case.' };
+        }
+      }
+      await tx.insert(reviewRound).values({ id: randomUUID(), caseId: current.id, firmId: request.firmId, submittedRevision: current.latestRevision, submittedBy: request.actor.userId, reviewerIds });
+      await audit('case.submitted', { reviewerIds });
+    } else if (request.action === 'return') {
+      await tx.update(reviewRound).set({ outcome: 'returned', closedAt: now }).where(eq(reviewRound.id, round!.id));
+      await audit('case.returned', { comments: request.reason?.trim() });
+    } else if (request.action === 'approve') {
+      // Approval re-runs every block: the snapshot is what the reviewer checked, with today's solver.
+      const [latest] = await tx
+        .select({ body: caseRevision.body })
+        .from(caseRevision)
+        .where(and(eq(caseRevision.caseId, current.id), eq(caseRevision.number, current.latestRevision)));
+      await tx.insert(approval).values({
+        id: randomUUID(),
+        roundId: round!.id,
+        caseId: current.id,
+        firmId: request.firmId,
+        revisionNumber: current.latestRevision,
+        reviewerId: request.actor.userId,
+        solverVersion: SOLVER_VERSION,
+        snapshot: evaluateCase(latest?.body ?? ''),
+      });
+      await audit('case.approved', { solverVersion: SOLVER_VERSION, approvals: decision.approverIds.length, requiredApprovals });
+      if (decision.publishes) {
+        await tx.update(reviewRound).set({ outcome: 'published', closedAt: now }).where(eq(reviewRound.id, round!.id));
+        if (current.publishedRevision !== null) await audit('case.superseded', { supersededRevision: current.publishedRevision });
+        await audit('case.published');
+      }
+    } else {
+      await audit('case.withdrawn', { reason: request.reason?.trim() });
+    }
+
+    await tx
+      .update(caseFile)
+      .set({ state: decision.to, updatedAt: now, ...(decision.publishes ? { publishedRevision: sql`${caseFile.latestRevision}` } : {}) })
+      .where(eq(caseFile.id, current.id));
+    return { ok: true, state: decision.to, publishes: decision.publishes, revision: current.latestRevision, approvals: decision.approverIds.length, requiredApprovals };
+  });
+}
