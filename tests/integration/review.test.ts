@@ -3,13 +3,13 @@ import { and, eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { db } from '../../src/db/client';
 import { approval, auditEvent, caseFile, firmReviewSetting } from '../../src/db/schema';
-import { createCase } from '../../src/lib/cases';
+import { createCase, type CaseMetadata } from '../../src/lib/cases';
 import { actOnCase, type ReviewRequest } from '../../src/lib/review';
 import { SOLVER_VERSION } from '../../src/lib/solver';
 import { makeFirm } from '../helpers/firms';
 
 const BODY = 'Basin check.\n\n```jump basin\nb = 12 m\nQ = 85 m3/s\ny1 = 0.53 m\n```\n';
-const metadata = { title: 'Orrin Beck weir stilling basin', structureType: 'spillway-basin', sectionShape: 'rectangular', tags: [] as string[] };
+const metadata: CaseMetadata = { title: 'Orrin Beck weir stilling basin', structureType: 'spillway-basin', sectionShape: 'rectangular', tags: [] };
 
 async function setUp(requiredApprovals = 1) {
   const f = await makeFirm({ author: 'engineer', rev: 'reviewer', rev2: 'reviewer', admin: 'admin', colleague: 'engineer' });
