@@ -14,7 +14,7 @@
  */
 import { LRUCache } from 'lru-cache';
 import { renderToStaticMarkup } from 'react-dom/server';
-import { renderCase } from '../../lib/markdown';
+import { escapeHtml, renderCase } from '../../lib/markdown';
 import { SOLVER_VERSION } from '../../lib/solver';
 import { BlockChart } from '../blocks/BlockChart';
 import { BlockBody, BlockHeader, blockHead, BlockResults, PANEL_BODY_CLASS, PANEL_CLASS, type BlockHead } from '../blocks/BlockResults';
@@ -119,10 +119,6 @@ export function renderReadingBody(body: string): ReadingBody {
     }
   }
   return { parts };
-}
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 
 /**

@@ -19,6 +19,7 @@ import remarkParse from 'remark-parse';
 import remarkRehype from 'remark-rehype';
 import { unified } from 'unified';
 import { evaluateCase, type CaseEvaluation } from '../calc';
+import { escapeHtml } from './escapeHtml';
 import { addHeadingIds } from './headingIds';
 import { renderMath } from './renderMath';
 import { CASE_SANITIZE_SCHEMA } from './sanitizeSchema';
@@ -40,10 +41,6 @@ const toHast = unified()
 
 /** Serialisation: `raw` nodes are KaTeX's output only (the sanitiser removed all others). */
 const HTML_OPTIONS = { allowDangerousHtml: true } as const;
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
-}
 
 /** The sanitised, math-rendered tree of `markdown`; null only if a plugin failed. */
 function hastOf(markdown: string): Root | null {

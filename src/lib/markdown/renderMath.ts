@@ -8,6 +8,7 @@
  */
 import type { Element, ElementContent, Root, RootContent } from 'hast';
 import katex, { type KatexOptions } from 'katex';
+import { escapeHtml } from './escapeHtml';
 
 /** Colour of a formula KaTeX cannot read: the palette's `fault`. */
 export const MATH_ERROR_COLOR = '#9a3026';
@@ -36,10 +37,6 @@ function classes(node: Element): readonly unknown[] {
 function textOf(node: ElementContent): string {
   if (node.type === 'text') return node.value;
   return node.type === 'element' ? node.children.map(textOf).join('') : '';
-}
-
-function escapeHtml(text: string): string {
-  return text.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 
 /** KaTeX's HTML for `tex`; a red, escaped copy of the source when KaTeX cannot read it. */
