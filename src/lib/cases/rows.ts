@@ -70,6 +70,20 @@ export const latestRevisionOf = and(
   eq(caseRevision.number, caseFile.latestRevision),
 );
 
+/**
+ * The case row of the firm, locked until the transaction `tx` ends (`SELECT … FOR UPDATE`),
+ * or undefined (also for another firm's case). Every change of a case starts here, so
+ * concurrent saves and review actions on one case run one after another.
+ */
+export async function lockCase(tx: Queryable, firmId: string, caseId: string) {
+  const [found] = await tx
+    .select()
+    .from(caseFile)
+    .where(and(eq(caseFile.id, caseId), eq(caseFile.firmId, firmId)))
+    .for('update');
+  return found;
+}
+
 /** One revision of a case of the firm, with its body and results, or null. */
 export async function findRevision(
   database: Queryable,

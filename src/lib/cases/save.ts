@@ -5,7 +5,7 @@ import { caseFile, caseRevision } from '../../db/schema';
 import { recordAudit } from '../audit';
 import { evaluateCase } from '../calc';
 import { keyFigures } from './keyFigures';
-import { findCase, findRevision, keyFigureValues } from './rows';
+import { findCase, findRevision, keyFigureValues, lockCase } from './rows';
 import type { CaseDetail, LatestRevisionInfo } from './types';
 import type { CaseMetadataPatch } from './validation';
 
@@ -56,11 +56,7 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
   // Evaluating is pure CPU: do it before the row lock is taken.
   const results = input.body !== undefined ? evaluateCase(input.body) : null;
   return database.transaction(async (tx): Promise<SaveCaseResult> => {
-    const [current] = await tx
-      .select()
-      .from(caseFile)
-      .where(and(eq(caseFile.id, input.caseId), eq(caseFile.firmId, input.firmId)))
-      .for('update');
+    const current = await lockCase(tx, input.firmId, input.caseId);
     if (!current) return { ok: false, reason: 'not_found' };
     if (current.authorId !== input.userId) return { ok: false, reason: 'forbidden' };
     if (current.state !== 'draft') return { ok: false, reason: 'not_editable' };

@@ -12,7 +12,7 @@ import { approval, caseFile, caseRevision, firmReviewSetting, member, reviewRoun
 import { recordAudit } from '../audit';
 import type { Role } from '../auth/roles';
 import { evaluateCase } from '../calc';
-import type { CaseState } from '../cases/states';
+import { lockCase, type CaseState } from '../cases';
 import { SOLVER_VERSION } from '../solver';
 import { decideReview, type ReviewAction, type ReviewRefusal } from './transitions';
 
@@ -41,11 +41,7 @@ async function requiredApprovalsOf(tx: Queryable, firmId: string): Promise<numbe
 /** Applies `request` to the case; see the module comment. Never throws for a refused action. */
 export async function actOnCase(database: Database, request: ReviewRequest): Promise<ReviewResult> {
   return database.transaction(async (tx): Promise<ReviewResult> => {
-    const [current] = await tx
-      .select()
-      .from(caseFile)
-      .where(and(eq(caseFile.id, request.caseId), eq(caseFile.firmId, request.firmId)))
-      .for('update');
+    const current = await lockCase(tx, request.firmId, request.caseId);
     if (!current) return { ok: false, reason: 'not_found', status: 404, message: 'No such case in this firm.' };
 
     const [round] = await tx
