@@ -29,3 +29,21 @@ export async function closeDb(): Promise<void> {
 
 /** Anything queries can run on: the client or a transaction. */
 export type Queryable = Pick<Database, 'select' | 'insert' | 'update' | 'delete' | 'execute'>;
+
+/**
+ * A statement prepared once per Drizzle client: `prepared(build)` returns a function that
+ * gives the statement `build` makes for a client, building it on first use. Named prepared
+ * statements are parsed and planned once per connection, and Drizzle skips building the SQL.
+ * Use for queries on every request's path.
+ */
+export function prepared<T>(build: (database: Database) => T): (database: Database) => T {
+  const byClient = new WeakMap<Database, T>();
+  return (database) => {
+    let statement = byClient.get(database);
+    if (statement === undefined) {
+      statement = build(database);
+      byClient.set(database, statement);
+    }
+    return statement;
+  };
+}

@@ -4,7 +4,7 @@
  * blocks), and the newest entries of its history with the number of revisions.
  */
 import { and, eq, sql } from 'drizzle-orm';
-import type { Database } from '../../db/client';
+import { prepared, type Database } from '../../db/client';
 import { caseFile, caseRevision, user } from '../../db/schema';
 import { latestRevisionOf, revisionAuthor, summaryColumns } from './rows';
 import type { CaseSummary } from './types';
@@ -40,8 +40,8 @@ const history = sql<Array<{ number: number; authorName: string; createdAt: strin
 
 const revisionCount = sql<number>`(select count(*)::int from ${caseRevision} r where r.case_id = ${caseFile.id} and r.firm_id = ${caseFile.firmId})`;
 
-function prepare(database: Database) {
-  return database
+const readingQuery = prepared((database: Database) =>
+  database
     .select({
       ...summaryColumns,
       revisionBody: caseRevision.body,
@@ -56,19 +56,12 @@ function prepare(database: Database) {
     .innerJoin(caseRevision, latestRevisionOf)
     .innerJoin(revisionAuthor, eq(revisionAuthor.id, caseRevision.authorId))
     .where(and(eq(caseFile.firmId, sql.placeholder('firmId')), eq(caseFile.id, sql.placeholder('caseId'))))
-    .prepare('case_reading');
-}
-
-const prepared = new WeakMap<Database, ReturnType<typeof prepare>>();
+    .prepare('case_reading'),
+);
 
 /** The case `caseId` of the firm for its reading page, or null (also for another firm's case). */
 export async function getCaseReading(database: Database, firmId: string, caseId: string): Promise<CaseReading | null> {
-  let statement = prepared.get(database);
-  if (!statement) {
-    statement = prepare(database);
-    prepared.set(database, statement);
-  }
-  const [found] = await statement.execute({ firmId, caseId });
+  const [found] = await readingQuery(database).execute({ firmId, caseId });
   if (!found) return null;
   const { revisionBody, revisionSolverVersion, revisionAuthorName, revisionCreatedAt, history: entries, revisionCount: count, ...summary } = found;
   return {

@@ -1,5 +1,5 @@
 import { and, asc, eq, sql } from 'drizzle-orm';
-import type { Database } from '../../db/client';
+import { prepared, type Database } from '../../db/client';
 import { member, organization } from '../../db/schema';
 import { asRole, type Role } from '../auth/roles';
 
@@ -17,7 +17,7 @@ export interface FirmContext {
   role: Role;
 }
 
-function prepare(database: Database, withActiveFirm: boolean) {
+function build(database: Database, withActiveFirm: boolean) {
   const userId = eq(member.userId, sql.placeholder('userId'));
   return database
     .select({
@@ -35,9 +35,9 @@ function prepare(database: Database, withActiveFirm: boolean) {
     .prepare(withActiveFirm ? 'resolve_active_firm' : 'resolve_first_firm');
 }
 
-type Statements = { active: ReturnType<typeof prepare>; first: ReturnType<typeof prepare> };
 // Every request runs this: prepared once per client, planned once per connection.
-const prepared = new WeakMap<Database, Statements>();
+const activeFirmQuery = prepared((database) => build(database, true));
+const firstFirmQuery = prepared((database) => build(database, false));
 
 /**
  * The firm a signed-in user acts in: the session's active firm if they are still a member
@@ -45,12 +45,7 @@ const prepared = new WeakMap<Database, Statements>();
  * every request, so a removal or a role change takes effect at once.
  */
 export async function resolveFirm(database: Database, userId: string, activeFirmId: string | null | undefined): Promise<FirmContext | null> {
-  let statements = prepared.get(database);
-  if (!statements) {
-    statements = { active: prepare(database, true), first: prepare(database, false) };
-    prepared.set(database, statements);
-  }
-  const rows = activeFirmId ? await statements.active.execute({ userId, firmId: activeFirmId }) : await statements.first.execute({ userId });
+  const rows = activeFirmId ? await activeFirmQuery(database).execute({ userId, firmId: activeFirmId }) : await firstFirmQuery(database).execute({ userId });
   const row = rows[0];
   if (!row) return activeFirmId ? resolveFirm(database, userId, null) : null;
   const role = asRole(row.role);
