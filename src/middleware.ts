@@ -1,3 +1,4 @@
+import type { APIContext, MiddlewareNext } from 'astro';
 import { defineMiddleware } from 'astro:middleware';
 import { db } from './db/client';
 import { auth } from './lib/auth';
@@ -47,7 +48,7 @@ export const onRequest = defineMiddleware(async (context, next) => {
 });
 
 /** The response for a request whose session is resolved: a redirect, a JSON error, or the route's. */
-async function guard(context: Parameters<Parameters<typeof defineMiddleware>[0]>[0], next: () => Promise<Response>): Promise<Response> {
+async function guard(context: APIContext, next: MiddlewareNext): Promise<Response> {
   const { pathname } = context.url;
   if (!isPublic(pathname)) {
     const isApi = pathname.startsWith('/api/');
