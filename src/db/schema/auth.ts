@@ -128,8 +128,15 @@ export const invitation = pgTable(
     inviterId: text('inviter_id')
       .notNull()
       .references(() => user.id, { onDelete: 'cascade' }),
+    /** SHA-256 of the one-use token in the invitation link (the token itself is never stored). */
+    tokenHash: text('token_hash'),
+    acceptedAt: timestamp('accepted_at', { withTimezone: true }),
   },
-  (t) => [index('invitation_firm_idx').on(t.organizationId), index('invitation_email_idx').on(t.email)],
+  (t) => [
+    index('invitation_firm_idx').on(t.organizationId),
+    index('invitation_email_idx').on(t.email),
+    uniqueIndex('invitation_token_hash_unique').on(t.tokenHash),
+  ],
 );
 
 /** Sign-in rate-limit counters, kept in PostgreSQL so every app server shares them. */

@@ -2,3 +2,4 @@ export * from './auth';
 export * from './audit';
 export * from './cases';
 export * from './review';
+export * from './mail';

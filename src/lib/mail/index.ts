@@ -1,0 +1,1 @@
+export { queueMail, type MailKind, type MailMessage, type QueuedMail } from './outbox';
