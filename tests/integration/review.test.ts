@@ -3,7 +3,7 @@ import { and, eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { db } from '../../src/db/client';
 import { approval, auditEvent, caseFile, firmReviewSetting } from '../../src/db/schema';
-import { createCase, type CaseMetadata } from '../../src/lib/cases';
+import { createCase, saveCase, type CaseMetadata } from '../../src/lib/cases';
 import { actOnCase, type ReviewRequest } from '../../src/lib/review';
 import { SOLVER_VERSION } from '../../src/lib/solver';
 import { makeFirm } from '../helpers/firms';
@@ -18,7 +18,9 @@ async function setUp(requiredApprovals = 1) {
   const as = (who: keyof typeof f.people) => ({ userId: f.people[who]!.userId, role: f.people[who]!.role });
   const act = (who: keyof typeof f.people, action: ReviewRequest['action'], extra: Partial<ReviewRequest> = {}) =>
     actOnCase(db(), { firmId: f.firm.id, caseId: created.id, actor: as(who), action, ...extra });
-  return { f, caseId: created.id, act };
+  const edit = (body: string, baseRevision: number, metadataPatch?: { title: string }) =>
+    saveCase(db(), { firmId: f.firm.id, caseId: created.id, userId: f.people.author!.userId, baseRevision, body, ...(metadataPatch ? { metadata: metadataPatch } : {}) });
+  return { f, caseId: created.id, act, edit };
 }
 
 const stateOf = async (caseId: string) => (await db().select().from(caseFile).where(eq(caseFile.id, caseId)))[0]!;
@@ -84,5 +86,58 @@ describe('review services', () => {
     const other = await makeFirm({ rev: 'reviewer' });
     const outside = await actOnCase(db(), { firmId: other.firm.id, caseId, actor: { userId: other.people.rev!.userId, role: 'reviewer' }, action: 'withdraw', reason: 'x' });
     expect(outside).toMatchObject({ ok: false, reason: 'not_found', status: 404 });
+  });
+
+  describe('editing during review', () => {
+    it('lets the author revise a returned case and resubmit it', async () => {
+      const { caseId, act, edit } = await setUp();
+      await act('author', 'submit');
+      await act('rev', 'return', { reason: 'Check the tailwater at the design flood.' });
+      const saved = await edit(BODY + '\nTailwater checked at the design flood.\n', 1);
+      expect(saved).toMatchObject({ ok: true, revisionCreated: true, startedDraft: false, cancelledApprovals: [] });
+      expect(await stateOf(caseId)).toMatchObject({ state: 'returned', latestRevision: 2 });
+      expect(await act('author', 'submit')).toMatchObject({ ok: true, state: 'in_review', revision: 2 });
+    });
+
+    it('cancels the approvals given so far when the case is edited in review, and names those reviewers', async () => {
+      const { f, caseId, act, edit } = await setUp(2);
+      await act('author', 'submit');
+      await act('rev', 'approve');
+      const saved = await edit(BODY + '\nApron level corrected.\n', 1);
+      expect(saved).toMatchObject({ ok: true, cancelledApprovals: [f.people.rev!.userId] });
+      expect(await stateOf(caseId)).toMatchObject({ state: 'in_review', latestRevision: 2 });
+      const [given] = await db().select().from(approval).where(eq(approval.caseId, caseId));
+      expect(given!.cancelledAt).toBeInstanceOf(Date);
+      // The cancelled approval no longer counts: it takes two fresh approvals of revision 2.
+      expect(await act('rev2', 'approve')).toMatchObject({ ok: true, state: 'in_review', approvals: 1 });
+      expect(await act('rev', 'approve')).toMatchObject({ ok: true, state: 'published', revision: 2 });
+      const actions = (await db().select({ a: auditEvent.action }).from(auditEvent).where(eq(auditEvent.targetId, caseId))).map((r) => r.a);
+      expect(actions).toContain('case.approvals_cancelled');
+    });
+
+    it('starts a new draft when a published case is edited, keeps the publication, and supersedes it on the next publish', async () => {
+      const { caseId, act, edit } = await setUp();
+      await act('author', 'submit');
+      await act('rev', 'approve');
+      // A metadata-only change of a published case is a new revision too: the published one never changes.
+      const renamed = await edit(BODY, 1, { title: 'Orrin Beck weir stilling basin (raised crest)' });
+      expect(renamed).toMatchObject({ ok: true, revisionCreated: true, startedDraft: true });
+      expect(await stateOf(caseId)).toMatchObject({ state: 'draft', latestRevision: 2, publishedRevision: 1 });
+      await act('author', 'submit');
+      expect(await act('rev', 'approve')).toMatchObject({ ok: true, state: 'published', revision: 2 });
+      expect(await stateOf(caseId)).toMatchObject({ state: 'published', publishedRevision: 2 });
+      const superseded = await db().select().from(auditEvent).where(and(eq(auditEvent.targetId, caseId), eq(auditEvent.action, 'case.superseded')));
+      expect(superseded[0]!.details).toMatchObject({ supersededRevision: 1 });
+    });
+
+    it('refuses edits of a withdrawn case and edits by anyone but the author', async () => {
+      const { f, caseId, act, edit } = await setUp();
+      await act('author', 'submit');
+      await act('rev', 'approve');
+      const byReviewer = await saveCase(db(), { firmId: f.firm.id, caseId, userId: f.people.rev!.userId, baseRevision: 1, body: 'x' });
+      expect(byReviewer).toMatchObject({ ok: false, reason: 'forbidden' });
+      await act('admin', 'withdraw', { reason: 'Superseded by the 2026 survey.' });
+      expect(await edit(BODY + '\nmore', 1)).toMatchObject({ ok: false, reason: 'not_editable' });
+    });
   });
 });

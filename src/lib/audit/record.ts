@@ -11,6 +11,7 @@ export type AuditAction =
   | 'case.submitted'
   | 'case.returned'
   | 'case.approved'
+  | 'case.approvals_cancelled'
   | 'case.published'
   | 'case.superseded'
   | 'case.withdrawn';

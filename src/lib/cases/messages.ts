@@ -8,12 +8,12 @@ export const CASE_FAILURES: Record<Failure, { status: number; code: string; mess
   forbidden: {
     status: 403,
     code: 'forbidden',
-    message: 'Only the author can edit this case: for now a case is a draft owned by its author.',
+    message: 'Only the author edits a case; a reviewer says what to change in a comment or by returning it.',
   },
   not_editable: {
     status: 409,
     code: 'not_editable',
-    message: 'Only a draft can be edited, and this case is no longer a draft.',
+    message: 'This case has been withdrawn and is no longer edited. Start a new case from it instead.',
   },
   conflict: {
     status: 409,

@@ -1,9 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, isNull } from 'drizzle-orm';
 import type { Database } from '../../db/client';
-import { caseFile, caseRevision } from '../../db/schema';
+import { approval, caseFile, caseRevision } from '../../db/schema';
 import { recordAudit } from '../audit';
 import { evaluateCase } from '../calc';
+// The pure decision module only (the review barrel carries services that import this one).
+import { afterEdit } from '../review/transitions';
 import { keyFigures } from './keyFigures';
 import { findCase, findRevision, keyFigureValues, lockCase } from './rows';
 import type { CaseDetail, LatestRevisionInfo } from './types';
@@ -13,7 +15,7 @@ import type { CaseMetadataPatch } from './validation';
 export interface CaseSave {
   firmId: string;
   caseId: string;
-  /** Who saves: for now only the author may. */
+  /** Who saves: only the author may. */
   userId: string;
   /** The revision the editor started from. */
   baseRevision: number;
@@ -32,6 +34,10 @@ export type SaveCaseResult =
       revisionCreated: boolean;
       /** Metadata fields whose value changed. */
       changedFields: string[];
+      /** Reviewers whose approvals this edit of a case in review cancelled. */
+      cancelledApprovals: string[];
+      /** True when this edit of a published case started a new draft. */
+      startedDraft: boolean;
     }
   | { ok: false; reason: 'not_found' | 'forbidden' | 'not_editable' }
   | { ok: false; reason: 'conflict'; latest: LatestRevisionInfo };
@@ -43,13 +49,18 @@ const same = (a: unknown, b: unknown) =>
   Array.isArray(a) && Array.isArray(b) ? a.length === b.length && a.every((x, i) => x === b[i]) : a === b;
 
 /**
- * Saves a draft: with the case row locked (`FOR UPDATE`), refuses another firm's or a
- * missing case (`not_found`), someone other than the author (`forbidden`: for now a case is
- * a draft owned by its author), a case that is not a draft (`not_editable`) and a save
- * based on an older revision than the latest (`conflict`, with the latest revision so the
- * editor can show both). Otherwise, when the body changed, writes revision latest + 1 with
- * the body re-evaluated; metadata changes update the case without a new revision (they are
- * in the audit trail). An unchanged save writes nothing. Records `case.saved`.
+ * Saves the author's edit: with the case row locked (`FOR UPDATE`), refuses another firm's
+ * or a missing case (`not_found`), someone other than the author (`forbidden`), a case no
+ * one edits any more (`not_editable`: withdrawn) and a save based on an older revision than
+ * the latest (`conflict`, with the latest revision so the editor can show both). What the
+ * edit does to the case follows `afterEdit`:
+ * - draft or returned: stays so;
+ * - in review: every approval given so far is cancelled (kept, with `cancelled_at`), and the
+ *   result names those reviewers so they can be told;
+ * - published: a new draft revision starts (even for a metadata-only change, so the
+ *   published revision is never changed) while `published_revision` stays readable.
+ * When the body changed, writes revision latest + 1 with the body re-evaluated. An unchanged
+ * save writes nothing. Records `case.saved` (and `case.approvals_cancelled`).
  * The slug never changes.
  */
 export async function saveCase(database: Database, input: CaseSave): Promise<SaveCaseResult> {
@@ -59,7 +70,8 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
     const current = await lockCase(tx, input.firmId, input.caseId);
     if (!current) return { ok: false, reason: 'not_found' };
     if (current.authorId !== input.userId) return { ok: false, reason: 'forbidden' };
-    if (current.state !== 'draft') return { ok: false, reason: 'not_editable' };
+    const next = afterEdit(current.state);
+    if (!next) return { ok: false, reason: 'not_editable' };
     const latest = await findRevision(tx, input.firmId, current.id, current.latestRevision);
     if (!latest) throw new Error(`case ${current.id} has no revision ${current.latestRevision}`);
     if (input.baseRevision !== current.latestRevision) {
@@ -75,11 +87,19 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
       Object.assign(changes, { [field]: value });
       changedFields.push(field);
     }
-    const newBody = results && input.body !== undefined && input.body !== latest.body ? { body: input.body, results } : null;
-    const revisionCreated = newBody !== null;
-    if (!revisionCreated && !changedFields.length) {
-      return { ok: true, case: (await findCase(tx, input.firmId, current.id))!, revisionCreated: false, changedFields: [] };
+    const bodyChanged = results !== null && input.body !== undefined && input.body !== latest.body;
+    if (!bodyChanged && !changedFields.length) {
+      const unchanged = (await findCase(tx, input.firmId, current.id))!;
+      return { ok: true, case: unchanged, revisionCreated: false, changedFields: [], cancelledApprovals: [], startedDraft: false };
     }
+    // A published revision is never changed: any edit of a published case is a new revision.
+    const startedDraft = current.state === 'published';
+    const newBody = bodyChanged
+      ? { body: input.body!, results: results! }
+      : startedDraft
+        ? { body: latest.body, results: latest.results }
+        : null;
+    const revisionCreated = newBody !== null;
 
     const now = new Date();
     const number = revisionCreated ? current.latestRevision + 1 : current.latestRevision;
@@ -99,8 +119,16 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
     }
     await tx
       .update(caseFile)
-      .set({ ...changes, latestRevision: number, updatedAt: now })
+      .set({ ...changes, state: next.state, latestRevision: number, updatedAt: now })
       .where(and(eq(caseFile.id, current.id), eq(caseFile.firmId, input.firmId)));
+    const cancelled = next.cancelsApprovals
+      ? await tx
+          .update(approval)
+          .set({ cancelledAt: now })
+          .where(and(eq(approval.caseId, current.id), eq(approval.firmId, input.firmId), isNull(approval.cancelledAt)))
+          .returning({ reviewerId: approval.reviewerId, revisionNumber: approval.revisionNumber })
+      : [];
+    const cancelledApprovals = [...new Set(cancelled.map((a) => a.reviewerId))];
     await recordAudit(tx, {
       firmId: input.firmId,
       actorUserId: input.userId,
@@ -115,8 +143,20 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
           ? { from: Object.fromEntries(changedFields.map((f) => [f, current[f as MetadataField]])), to: changes }
           : {}),
         ...(newBody ? { solverVersion: newBody.results.solverVersion } : {}),
+        ...(startedDraft ? { startedDraftFrom: current.publishedRevision } : {}),
       },
     });
-    return { ok: true, case: (await findCase(tx, input.firmId, current.id))!, revisionCreated, changedFields };
+    if (cancelledApprovals.length) {
+      await recordAudit(tx, {
+        firmId: input.firmId,
+        actorUserId: input.userId,
+        action: 'case.approvals_cancelled',
+        targetType: 'case',
+        targetId: current.id,
+        details: { revision: number, reviewerIds: cancelledApprovals, approvedRevisions: [...new Set(cancelled.map((a) => a.revisionNumber))] },
+      });
+    }
+    const saved = (await findCase(tx, input.firmId, current.id))!;
+    return { ok: true, case: saved, revisionCreated, changedFields, cancelledApprovals, startedDraft };
   });
 }
