@@ -21,5 +21,5 @@ export const auditEvent = pgTable(
     details: jsonb('details').$type<Record<string, unknown>>().notNull().default({}),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index('audit_event_firm_created_idx').on(t.firmId, t.createdAt)],
+  (t) => [index('audit_event_firm_created_idx').on(t.firmId, t.createdAt), index('audit_event_target_idx').on(t.targetId, t.createdAt)],
 );

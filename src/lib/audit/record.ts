@@ -6,6 +6,7 @@ export type AuditAction =
   | 'member.added'
   | 'member.role_changed'
   | 'firm.created'
+  | 'firm.review_setting_changed'
   | 'case.created'
   | 'case.saved'
   | 'case.submitted'

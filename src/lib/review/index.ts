@@ -4,3 +4,21 @@
  */
 export { ACTION_FROM, afterEdit, decideReview, REVIEW_ACTIONS, type ReviewAction, type ReviewActor, type ReviewDecision, type ReviewRefusal, type ReviewSituation } from './transitions';
 export { actOnCase, type ReviewRequest, type ReviewResult } from './services';
+export {
+  addComment,
+  COMMENT_FAILURES,
+  listComments,
+  MAX_COMMENT_LENGTH,
+  NewCommentSchema,
+  openCommentCounts,
+  ResolveCommentSchema,
+  resolveThread,
+  type AddCommentResult,
+  type CommentEntry,
+  type Commenter,
+  type CommentRefusal,
+  type CommentThread,
+  type NewComment,
+} from './comments';
+export { getReviewPanel, type ApprovalEntry, type Person, type ReviewEvent, type ReviewPanel } from './panel';
+export { requiredApprovalsOf, setRequiredApprovals } from './settings';

@@ -7,13 +7,15 @@
  */
 import { randomUUID } from 'node:crypto';
 import { and, eq, gt, inArray, isNull, sql } from 'drizzle-orm';
-import type { Database, Queryable } from '../../db/client';
-import { approval, caseFile, caseRevision, firmReviewSetting, member, reviewRound } from '../../db/schema';
+import type { Database } from '../../db/client';
+import { approval, caseFile, caseRevision, member, reviewComment, reviewRound } from '../../db/schema';
 import { recordAudit } from '../audit';
 import type { Role } from '../auth/roles';
 import { evaluateCase } from '../calc';
 import { lockCase, type CaseState } from '../cases';
 import { SOLVER_VERSION } from '../solver';
+import { openCommentCounts } from './comments';
+import { requiredApprovalsOf } from './settings';
 import { decideReview, type ReviewAction, type ReviewRefusal } from './transitions';
 
 /** A review action as a route hands it over (already validated). */
@@ -32,11 +34,6 @@ export interface ReviewRequest {
 export type ReviewResult =
   | { ok: true; state: CaseState; publishes: boolean; revision: number; approvals: number; requiredApprovals: number }
   | { ok: false; reason: ReviewRefusal | 'not_found' | 'unknown_reviewer'; status: 403 | 404 | 409 | 422; message: string };
-
-async function requiredApprovalsOf(tx: Queryable, firmId: string): Promise<number> {
-  const [setting] = await tx.select({ n: firmReviewSetting.requiredApprovals }).from(firmReviewSetting).where(eq(firmReviewSetting.firmId, firmId));
-  return setting?.n ?? 1;
-}
 
 /** Applies `request` to the case; see the module comment. Never throws for a refused action. */
 export async function actOnCase(database: Database, request: ReviewRequest): Promise<ReviewResult> {
@@ -60,10 +57,11 @@ export async function actOnCase(database: Database, request: ReviewRequest): Pro
       .from(caseRevision)
       .where(and(eq(caseRevision.caseId, current.id), gt(caseRevision.number, current.publishedRevision ?? 0)));
     const requiredApprovals = await requiredApprovalsOf(tx, request.firmId);
+    const openComments = request.action === 'approve' ? (await openCommentCounts(tx, current.id, request.actor.userId)).mine : 0;
 
     const decision = decideReview(
       request.action,
-      request.actor,
+      { ...request.actor, openComments },
       {
         state: current.state,
         authorId: current.authorId,
@@ -97,6 +95,15 @@ export async function actOnCase(database: Database, request: ReviewRequest): Pro
     } else if (request.action === 'return') {
       await tx.update(reviewRound).set({ outcome: 'returned', closedAt: now }).where(eq(reviewRound.id, round!.id));
       await audit('case.returned', { comments: request.reason?.trim() });
+      // The return's comments open a thread on the case, which the author resolves once fixed.
+      await tx.insert(reviewComment).values({
+        id: randomUUID(),
+        caseId: current.id,
+        firmId: request.firmId,
+        authorId: request.actor.userId,
+        body: request.reason!.trim(),
+        revisionNumber: current.latestRevision,
+      });
     } else if (request.action === 'approve') {
       // Approval re-runs every block: the snapshot is what the reviewer checked, with today's solver.
       const [latest] = await tx

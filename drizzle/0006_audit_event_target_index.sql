@@ -1,0 +1,1 @@
+CREATE INDEX "audit_event_target_idx" ON "audit_event" USING btree ("target_id","created_at");
