@@ -19,7 +19,20 @@ export interface DemoCase {
     tags: string[];
   };
   body: string;
+  /** Where the seed leaves the case in review (absent: a draft). */
+  review?: DemoReview;
 }
+
+/** A demo case's review, as the frontmatter's `review`, `reviewer` and `reviewComment` say. */
+export interface DemoReview {
+  state: 'in_review' | 'returned' | 'published';
+  /** The reviewer asked for, who returns or approves it (absent: the firm's pool, in review). */
+  reviewerEmail?: string;
+  /** The comments of a return. */
+  comment?: string;
+}
+
+const REVIEW_STATES = ['in_review', 'returned', 'published'] as const;
 
 export const demoCasesFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../content/cases');
 
@@ -49,7 +62,16 @@ export function parseDemoCase(file: string, text: string): DemoCase {
       tags,
     },
     body: match[2]!.replace(/^\s+/, ''),
+    ...(fields.review ? { review: demoReview(file, fields) } : {}),
   };
+}
+
+function demoReview(file: string, fields: Record<string, string>): DemoReview {
+  const state = REVIEW_STATES.find((s) => s === fields.review);
+  if (!state) throw new Error(`${file}: review must be one of ${REVIEW_STATES.join(', ')}`);
+  if (state !== 'in_review' && !fields.reviewer) throw new Error(`${file}: a ${state} case needs a reviewer`);
+  if (state === 'returned' && !fields.reviewComment) throw new Error(`${file}: a returned case needs reviewComment`);
+  return { state, ...(fields.reviewer ? { reviewerEmail: fields.reviewer } : {}), ...(fields.reviewComment ? { comment: fields.reviewComment } : {}) };
 }
 
 /** Every demo case, in file-name order. */

@@ -9,7 +9,8 @@ import { createCase } from '../lib/cases/create';
 import { CaseMetadataSchema } from '../lib/cases/validation';
 import { addMember, ensureFirm, type HashPassword } from '../lib/firms';
 import type { Database } from './client';
-import { readDemoCases } from './demoCases';
+import { readDemoCases, type DemoCase } from './demoCases';
+import { actOnCase, type ReviewRequest } from '../lib/review';
 import { caseFile, user } from './schema';
 
 /** The shared password of every demo account (printed by `npm start`, listed in the README). */
@@ -55,6 +56,21 @@ export interface SeedReport {
   cases: number;
 }
 
+/** Takes a demo case through review as its frontmatter says, with the real transitions. */
+async function seedReview(database: Database, firmId: string, caseId: string, authorId: string, demo: DemoCase): Promise<void> {
+  const review = demo.review!;
+  const reviewer = review.reviewerEmail ? (await database.select({ id: user.id }).from(user).where(eq(user.email, review.reviewerEmail)))[0] : undefined;
+  if (review.reviewerEmail && !reviewer) throw new Error(`${demo.file}: no demo account ${review.reviewerEmail}`);
+  const act = async (request: Omit<ReviewRequest, 'firmId' | 'caseId'>) => {
+    const result = await actOnCase(database, { firmId, caseId, ...request });
+    if (!result.ok) throw new Error(`${demo.file}: ${request.action} refused: ${result.message}`);
+  };
+  await act({ actor: { userId: authorId, role: 'engineer' }, action: 'submit', ...(reviewer ? { reviewerIds: [reviewer.id] } : {}) });
+  if (!reviewer || review.state === 'in_review') return;
+  if (review.state === 'returned') await act({ actor: { userId: reviewer.id, role: 'reviewer' }, action: 'return', reason: review.comment! });
+  else await act({ actor: { userId: reviewer.id, role: 'reviewer' }, action: 'approve' });
+}
+
 /**
  * Creates the demo firms, people and cases that do not exist yet (cases are matched by
  * title within the first demo firm, so edits made in the demo are kept).
@@ -86,7 +102,8 @@ export async function seedDemo(database: Database, hashPassword: HashPassword): 
       const [author] = await database.select({ id: user.id }).from(user).where(eq(user.email, demo.authorEmail));
       if (!author) throw new Error(`${demo.file}: no demo account ${demo.authorEmail}`);
       const metadata = CaseMetadataSchema.parse(demo.metadata);
-      await createCase(database, { firmId: firstFirmId, authorId: author.id, metadata, body: demo.body });
+      const created = await createCase(database, { firmId: firstFirmId, authorId: author.id, metadata, body: demo.body });
+      if (demo.review) await seedReview(database, firstFirmId, created.id, author.id, demo);
       cases += 1;
     }
   }

@@ -6,7 +6,7 @@ import { actOnCase, addComment, listComments, openCommentCounts, resolveThread, 
 import { makeFirm } from '../helpers/firms';
 
 const BODY = 'Gate check.\n\n```jump toe\nb = 6 m\nQ = 30 m3/s\ny1 = 0.4 m\n```\n';
-const metadata: CaseMetadata = { title: 'Tarn Mill sluice', structureType: 'sluice-gate', sectionShape: 'rectangular', tags: [] };
+const metadata: CaseMetadata = { title: 'Tarn Mill sluice', structureType: 'gate-tailwater', sectionShape: 'rectangular', tags: [] };
 
 async function setUp() {
   const f = await makeFirm({ author: 'engineer', rev: 'reviewer', rev2: 'reviewer', colleague: 'engineer' });

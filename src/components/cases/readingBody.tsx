@@ -16,6 +16,7 @@ import { LRUCache } from 'lru-cache';
 import { renderToStaticMarkup } from 'react-dom/server';
 import { escapeHtml, renderCase } from '../../lib/markdown';
 import { SOLVER_VERSION } from '../../lib/solver';
+import type { CaseEvaluation } from '../../lib/calc/results';
 import { BlockChart } from '../blocks/BlockChart';
 import { BlockBody, BlockHeader, blockHead, BlockResults, PANEL_BODY_CLASS, PANEL_CLASS, type BlockHead } from '../blocks/BlockResults';
 import type { WhatIfBlockProps } from '../blocks/WhatIfBlock';
@@ -25,7 +26,7 @@ import { whatIfPlan } from '../blocks/whatIf';
 export type ReadingPart =
   | { readonly type: 'html'; readonly html: string }
   /** A block without inputs to change (or with errors): its whole panel, static. */
-  | { readonly type: 'panel'; readonly html: string }
+  | { readonly type: 'panel'; readonly index: number; readonly html: string }
   /**
    * A block with a what-if form: the island's props (it draws the header), the static
    * header it replaces, and the saved results body, static.
@@ -44,6 +45,8 @@ export type ReadingPart =
 /** The rendered body of one revision. */
 export interface ReadingBody {
   readonly parts: readonly ReadingPart[];
+  /** The evaluation of the body's blocks with today's solver. */
+  readonly evaluation: CaseEvaluation;
 }
 
 /**
@@ -64,9 +67,16 @@ export type ReadingChunk =
 /** Most bytes (and characters) of rendered HTML kept. */
 const MAX_CHARACTERS = 48_000_000;
 
-const cache = new LRUCache<string, readonly ReadingChunk[]>({
+/** A revision as the reading page writes it, with the evaluation its blocks came from. */
+export interface ReadingRender {
+  readonly chunks: readonly ReadingChunk[];
+  readonly evaluation: CaseEvaluation;
+}
+
+const cache = new LRUCache<string, ReadingRender>({
   maxSize: MAX_CHARACTERS,
-  sizeCalculation: (chunks) => Math.max(1, chunks.reduce((n, c) => n + (c.type === 'island' ? c.payload.length + c.headerHtml.length : c.html.byteLength), 0)),
+  // The evaluation is counted at about its results' share of the HTML: the HTML is larger.
+  sizeCalculation: ({ chunks }) => Math.max(1, 2 * chunks.reduce((n, c) => n + (c.type === 'island' ? c.payload.length + c.headerHtml.length : c.html.byteLength), 0)),
 });
 
 /**
@@ -97,7 +107,7 @@ export function renderReadingBody(body: string): ReadingBody {
           </BlockResults>,
           options,
         );
-        parts.push({ type: 'panel', html });
+        parts.push({ type: 'panel', index: block.index, html });
       } else {
         const bodyHtml = renderToStaticMarkup(
           <BlockBody block={block}>
@@ -114,11 +124,12 @@ export function renderReadingBody(body: string): ReadingBody {
     } catch {
       parts.push({
         type: 'panel',
+        index: block.index,
         html: `<p class="notice notice-fault">The results of block “${escapeHtml(block.title)}” (line ${block.line}) could not be drawn. The text of the case is unaffected.</p>`,
       });
     }
   }
-  return { parts };
+  return { parts, evaluation: rendered.evaluation };
 }
 
 /**
@@ -132,9 +143,10 @@ export function readingChunks(parts: readonly ReadingPart[]): ReadingChunk[] {
   let html = '';
   for (const part of parts) {
     if (part.type === 'html') html += part.html;
-    else if (part.type === 'panel') html += `<div class="not-prose my-6">${part.html}</div>`;
+    // `block-N` anchors let review comments link to the block they are about.
+    else if (part.type === 'panel') html += `<div class="not-prose my-6" id="block-${part.index}">${part.html}</div>`;
     else {
-      html += `<div class="not-prose my-6"><section class="${PANEL_CLASS}" aria-labelledby="${part.headingId}" data-block-index="${part.head.index}" data-status="${part.head.status}">`;
+      html += `<div class="not-prose my-6" id="block-${part.head.index}"><section class="${PANEL_CLASS}" aria-labelledby="${part.headingId}" data-block-index="${part.head.index}" data-status="${part.head.status}">`;
       chunks.push({ type: 'html', html: encoder.encode(html) });
       chunks.push({ type: 'island', payload: part.payload, headerHtml: part.headerHtml });
       html = `<div class="${PANEL_BODY_CLASS} block-saved">${part.bodyHtml}</div></section></div>`;
@@ -145,14 +157,15 @@ export function readingChunks(parts: readonly ReadingPart[]): ReadingChunk[] {
 }
 
 /**
- * The reading body of revision `revisionId` (whose markdown is `body`) as page chunks, from
- * the cache when this server has rendered it before with the same solver.
+ * The reading body of revision `revisionId` (whose markdown is `body`) as page chunks with
+ * its evaluation, from the cache when this server has rendered it before with the same solver.
  */
-export function readingBody(revisionId: string, body: string): readonly ReadingChunk[] {
+export function readingBody(revisionId: string, body: string): ReadingRender {
   const key = `${revisionId}@${SOLVER_VERSION}`;
   const hit = cache.get(key);
   if (hit) return hit;
-  const made = readingChunks(renderReadingBody(body).parts);
+  const rendered = renderReadingBody(body);
+  const made: ReadingRender = { chunks: readingChunks(rendered.parts), evaluation: rendered.evaluation };
   cache.set(key, made);
   return made;
 }

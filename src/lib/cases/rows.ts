@@ -40,6 +40,7 @@ export const summaryColumns = {
   authorId: caseFile.authorId,
   authorName: user.name,
   latestRevision: caseFile.latestRevision,
+  publishedRevision: caseFile.publishedRevision,
   createdAt: caseFile.createdAt,
   updatedAt: caseFile.updatedAt,
   keyFigures: keyFigureColumns,

@@ -17,6 +17,8 @@ export interface CaseSummary {
   authorId: string;
   authorName: string;
   latestRevision: number;
+  /** The revision colleagues rely on; null until first published. A new draft leaves it standing. */
+  publishedRevision: number | null;
   createdAt: Date;
   updatedAt: Date;
   keyFigures: KeyFigures;

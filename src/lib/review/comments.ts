@@ -67,6 +67,11 @@ export const COMMENT_FAILURES: Record<CommentRefusal, { status: number; code: st
   withdrawn: { status: 409, code: 'withdrawn', message: 'This case has been withdrawn: its review is closed.' },
 };
 
+/** How each block of an evaluation is named in a comment's anchor ("Title (name)"). */
+export function blockAnchorTitles(evaluation: { readonly blocks: readonly { readonly title: string; readonly name: string | null }[] }): string[] {
+  return evaluation.blocks.map((b) => (b.name ? `${b.title} (${b.name})` : b.title));
+}
+
 /** Who is commenting. */
 export interface Commenter {
   userId: string;

@@ -6,6 +6,7 @@ export { ACTION_FROM, afterEdit, decideReview, REVIEW_ACTIONS, type ReviewAction
 export { actOnCase, type ReviewRequest, type ReviewResult } from './services';
 export {
   addComment,
+  blockAnchorTitles,
   COMMENT_FAILURES,
   listComments,
   MAX_COMMENT_LENGTH,
@@ -22,3 +23,4 @@ export {
 } from './comments';
 export { getReviewPanel, type ApprovalEntry, type Person, type ReviewEvent, type ReviewPanel } from './panel';
 export { requiredApprovalsOf, setRequiredApprovals } from './settings';
+export { MAX_REASON_LENGTH, ReviewActionSchema, ReviewSettingSchema, type ReviewActionRequest } from './validation';
