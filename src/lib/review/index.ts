@@ -24,3 +24,4 @@ export {
 export { getReviewPanel, type ApprovalEntry, type Person, type ReviewEvent, type ReviewPanel } from './panel';
 export { requiredApprovalsOf, setRequiredApprovals } from './settings';
 export { MAX_REASON_LENGTH, ReviewActionSchema, ReviewSettingSchema, type ReviewActionRequest } from './validation';
+export { listReviewQueue, type QueueEntry, type ReviewQueue } from './queue';
