@@ -6,7 +6,7 @@ import { resolveFirm } from './lib/firms';
 import { errors } from './lib/http';
 
 /** Routes anyone may open without signing in. */
-const PUBLIC_PAGES = new Set(['/signin', '/404']);
+const PUBLIC_PAGES = new Set(['/signin', '/join', '/404']);
 
 function isPublic(pathname: string): boolean {
   return PUBLIC_PAGES.has(pathname) || pathname.startsWith('/api/auth/');

@@ -1,5 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { call, sessionOf } from '../helpers/app';
+import { db } from '../../src/db/client';
+import { inviteMember } from '../../src/lib/firms';
+import { appUrl, call, sessionOf } from '../helpers/app';
 import { makeFirm, TEST_PASSWORD, type TestFirm } from '../helpers/firms';
 
 // A member of firm A must learn nothing of firm B: every firm-B resource answers 404,
@@ -7,11 +9,15 @@ import { makeFirm, TEST_PASSWORD, type TestFirm } from '../helpers/firms';
 let a: TestFirm;
 let b: TestFirm;
 let adminOfA: string;
+let invitationOfB: string;
 
 beforeAll(async () => {
   a = await makeFirm({ admin: 'admin', eng: 'engineer' });
   b = await makeFirm({ admin: 'admin', eng: 'engineer' });
   adminOfA = await sessionOf(a.people.admin!.email, TEST_PASSWORD);
+  const invited = await inviteMember(db(), { firmId: b.firm.id, inviterUserId: b.people.admin!.userId, email: 'newcomer@firm-b.example', role: 'engineer', baseUrl: appUrl() });
+  if (!invited.ok) throw new Error('could not invite into firm B');
+  invitationOfB = invited.invitation.invitationId;
 });
 
 describe('firm isolation', () => {
@@ -19,6 +25,7 @@ describe('firm isolation', () => {
     ['the firm profile', () => ({ path: `/api/v1/firms/${b.firm.id}` })],
     ['a member record', () => ({ path: `/api/v1/members/${b.people.eng!.memberId}` })],
     ['a role change of a member', () => ({ path: `/api/v1/members/${b.people.eng!.memberId}`, method: 'PATCH', json: { role: 'admin' } })],
+    ['the revocation of an invitation', () => ({ path: `/api/v1/invitations/${invitationOfB}`, method: 'DELETE', json: {} })],
   ];
 
   it.each(resources)('answers 404 for firm B %s', async (_label, request) => {

@@ -5,6 +5,9 @@ import { auditEvent } from '../../db/schema';
 export type AuditAction =
   | 'member.added'
   | 'member.role_changed'
+  | 'member.invited'
+  | 'member.invitation_revoked'
+  | 'member.joined'
   | 'firm.created'
   | 'firm.review_setting_changed'
   | 'case.created'

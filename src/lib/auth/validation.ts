@@ -23,6 +23,27 @@ export const AddMemberSchema = z.object({
     .max(128, 'Keep the password under 128 characters.'),
 });
 
+/** An admin inviting a colleague by e-mail. */
+export const InviteMemberSchema = z.object({
+  /** The colleague's work e-mail; the invitation goes there and becomes their sign-in name. */
+  email: z.string().trim().toLowerCase().email('Enter a valid e-mail address.'),
+  role: RoleSchema,
+});
+
+/** The invited colleague choosing their name and password on the join page. */
+export const AcceptInvitationSchema = z
+  .object({
+    /** Full name as it appears on calculation sheets. */
+    name: z.string().trim().min(2, 'Enter your full name.').max(120, 'Keep the name under 120 characters.'),
+    password: z
+      .string()
+      .min(MIN_PASSWORD_LENGTH, `Choose a password of at least ${MIN_PASSWORD_LENGTH} characters.`)
+      .max(128, 'Keep the password under 128 characters.'),
+    /** The same password again, to catch a typing slip. */
+    passwordRepeat: z.string(),
+  })
+  .refine((v) => v.password === v.passwordRepeat, { path: ['passwordRepeat'], message: 'The two passwords differ. Type the same password twice.' });
+
 /** An admin changing a member's role. */
 export const ChangeRoleSchema = z.object({ role: RoleSchema });
 

@@ -1,4 +1,4 @@
-export { MEMBER_FAILURES } from './messages';
+export { INVITATION_FAILURES, MEMBER_FAILURES } from './messages';
 export { resolveFirm, type Firm, type FirmContext } from './firm';
 export {
   addMember,
@@ -10,3 +10,19 @@ export {
   type FirmMember,
   type HashPassword,
 } from './members';
+export {
+  INVITATION_LIFETIME_DAYS,
+  acceptInvitation,
+  findInvitation,
+  hashInvitationToken,
+  inviteMember,
+  listInvitations,
+  revokeInvitation,
+  type AcceptInvitationResult,
+  type FindInvitationResult,
+  type InvitationProblem,
+  type InviteResult,
+  type OpenInvitation,
+  type PendingInvitation,
+  type RevokeInvitationResult,
+} from './invitations';
