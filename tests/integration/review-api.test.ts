@@ -101,3 +101,17 @@ describe('the case page forms and the queue', () => {
     expect(authorView).toContain('Revise');
   });
 });
+
+describe('the firm review rule', () => {
+  it('lets only an admin ask for two approvals, and records the change', async () => {
+    const g = await makeFirm({ admin: 'admin', rev: 'reviewer' });
+    const admin = await sessionOf(g.people.admin!.email, TEST_PASSWORD);
+    const rev = await sessionOf(g.people.rev!.email, TEST_PASSWORD);
+    expect((await call('/firm/members', { cookie: rev, form: { intent: 'review-setting', requiredApprovals: '2' } })).status).toBe(403);
+    expect((await call('/firm/members', { cookie: admin, form: { intent: 'review-setting', requiredApprovals: '3' } })).status).toBe(422);
+    const saved = await call('/firm/members', { cookie: admin, form: { intent: 'review-setting', requiredApprovals: '2' } });
+    expect(saved.status).toBe(200);
+    expect(await saved.text()).toContain('two reviewers’ approvals');
+    expect(await (await call('/review', { cookie: rev })).text()).toContain('Two reviewers’ approvals publish a case');
+  });
+});
