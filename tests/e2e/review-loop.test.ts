@@ -59,6 +59,16 @@ afterAll(async () => {
 
 const state = (page: Page) => page.getAttribute('[data-testid=review-panel]', 'data-state');
 
+describe('the review queue', () => {
+  it('lists the seeded cases waiting for the reviewer, longest wait first', async () => {
+    await reviewer.goto(`${appUrl()}/review`);
+    const waiting = await reviewer.textContent('[data-testid=queue-waiting]');
+    expect(waiting).toContain('Fennick');
+    expect(waiting).toContain('asked for you');
+    await reviewer.screenshot({ path: screenshotPath('review-queue'), fullPage: true });
+  });
+});
+
 describe('the review loop', () => {
   it('lets the engineer submit the draft to a chosen reviewer', async () => {
     await engineer.goto(caseUrl);
