@@ -6,6 +6,8 @@ import { recordAudit } from '../audit';
 import { evaluateCase } from '../calc';
 // The pure decision module only (the review barrel carries services that import this one).
 import { afterEdit } from '../review/transitions';
+import { notifyReview } from '../review/notify';
+import { wakeMailWorker } from '../mail';
 import { keyFigures } from './keyFigures';
 import { findCase, findRevision, keyFigureValues, lockCase } from './rows';
 import type { CaseDetail, LatestRevisionInfo } from './types';
@@ -55,8 +57,8 @@ const same = (a: unknown, b: unknown) =>
  * the latest (`conflict`, with the latest revision so the editor can show both). What the
  * edit does to the case follows `afterEdit`:
  * - draft or returned: stays so;
- * - in review: every approval given so far is cancelled (kept, with `cancelled_at`), and the
- *   result names those reviewers so they can be told;
+ * - in review: every approval given so far is cancelled (kept, with `cancelled_at`); those
+ *   reviewers are told by e-mail (queued in the same transaction) and named in the result;
  * - published: a new draft revision starts (even for a metadata-only change, so the
  *   published revision is never changed) while `published_revision` stays readable.
  * When the body changed, writes revision latest + 1 with the body re-evaluated. An unchanged
@@ -64,6 +66,13 @@ const same = (a: unknown, b: unknown) =>
  * The slug never changes.
  */
 export async function saveCase(database: Database, input: CaseSave): Promise<SaveCaseResult> {
+  const result = await applySave(database, input);
+  // Committed: messages to reviewers whose approvals were cancelled can go now.
+  if (result.ok && result.cancelledApprovals.length) wakeMailWorker();
+  return result;
+}
+
+async function applySave(database: Database, input: CaseSave): Promise<SaveCaseResult> {
   // Evaluating is pure CPU: do it before the row lock is taken.
   const results = input.body !== undefined ? evaluateCase(input.body) : null;
   return database.transaction(async (tx): Promise<SaveCaseResult> => {
@@ -154,6 +163,12 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
         targetType: 'case',
         targetId: current.id,
         details: { revision: number, reviewerIds: cancelledApprovals, approvedRevisions: [...new Set(cancelled.map((a) => a.revisionNumber))] },
+      });
+    }
+    if (cancelledApprovals.length) {
+      await notifyReview(tx, { firmId: input.firmId, caseId: current.id, title: changes.title ?? current.title, revision: number, authorId: current.authorId }, input.userId, {
+        kind: 'approvals_cancelled',
+        reviewerIds: cancelledApprovals,
       });
     }
     const saved = (await findCase(tx, input.firmId, current.id))!;

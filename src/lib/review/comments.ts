@@ -12,6 +12,8 @@ import type { Database, Queryable } from '../../db/client';
 import { reviewComment, user } from '../../db/schema';
 import { can, type Role } from '../auth/roles';
 import { lockCase } from '../cases';
+import { wakeMailWorker } from '../mail';
+import { notifyMentions } from './notify';
 
 /** Longest comment accepted (the database refuses longer ones too). */
 export const MAX_COMMENT_LENGTH = 10_000;
@@ -82,19 +84,20 @@ const mayTakePart = (who: Commenter, authorId: string) => who.userId === authorI
 
 /** The outcome of adding a comment. */
 export type AddCommentResult =
-  | { ok: true; id: string; threadId: string; reopened: boolean; revisionNumber: number }
+  | { ok: true; id: string; threadId: string; reopened: boolean; revisionNumber: number; /** Colleagues told by e-mail. */ mentioned: number }
   | { ok: false; reason: CommentRefusal };
 
 /**
  * Adds a comment to the case (a new thread, or a reply when `threadId` is given). A block
  * anchor records the block's title from `blockTitles` (the blocks of the latest revision)
  * so it still reads after edits; an index past the last block anchors to the whole case.
+ * Colleagues mentioned as `@name` (their e-mail before the @) are told by e-mail.
  */
 export async function addComment(
   database: Database,
   input: { firmId: string; caseId: string; commenter: Commenter; comment: NewComment; blockTitles?: readonly string[] },
 ): Promise<AddCommentResult> {
-  return database.transaction(async (tx): Promise<AddCommentResult> => {
+  const result = await database.transaction(async (tx): Promise<AddCommentResult> => {
     const current = await lockCase(tx, input.firmId, input.caseId);
     if (!current) return { ok: false, reason: 'not_found' };
     if (!mayTakePart(input.commenter, current.authorId)) return { ok: false, reason: 'not_participant' };
@@ -128,8 +131,12 @@ export async function addComment(
       blockIndex: blockTitle === null ? null : blockIndex,
       blockTitle,
     });
-    return { ok: true, id, threadId: threadId ?? id, reopened, revisionNumber: current.latestRevision };
+    const notified = { firmId: input.firmId, caseId: current.id, title: current.title, revision: current.latestRevision, authorId: current.authorId };
+    const mentioned = await notifyMentions(tx, notified, input.commenter.userId, { body: input.comment.body, blockTitle });
+    return { ok: true, id, threadId: threadId ?? id, reopened, revisionNumber: current.latestRevision, mentioned };
   });
+  if (result.ok && result.mentioned > 0) wakeMailWorker();
+  return result;
 }
 
 /** Resolves (or reopens) a thread of the case. */

@@ -14,7 +14,9 @@ import type { Role } from '../auth/roles';
 import { evaluateCase } from '../calc';
 import { lockCase, type CaseState } from '../cases';
 import { SOLVER_VERSION } from '../solver';
+import { wakeMailWorker } from '../mail';
 import { openCommentCounts } from './comments';
+import { notifyReview, type ReviewNotice } from './notify';
 import { requiredApprovalsOf } from './settings';
 import { decideReview, type ReviewAction, type ReviewRefusal } from './transitions';
 
@@ -37,6 +39,13 @@ export type ReviewResult =
 
 /** Applies `request` to the case; see the module comment. Never throws for a refused action. */
 export async function actOnCase(database: Database, request: ReviewRequest): Promise<ReviewResult> {
+  const result = await applyReview(database, request);
+  // The transaction has committed: the messages it queued can go now.
+  if (result.ok) wakeMailWorker();
+  return result;
+}
+
+function applyReview(database: Database, request: ReviewRequest): Promise<ReviewResult> {
   return database.transaction(async (tx): Promise<ReviewResult> => {
     const current = await lockCase(tx, request.firmId, request.caseId);
     if (!current) return { ok: false, reason: 'not_found', status: 404, message: 'No such case in this firm.' };
@@ -75,6 +84,8 @@ export async function actOnCase(database: Database, request: ReviewRequest): Pro
     if (!decision.ok) return decision;
 
     const now = new Date();
+    const notified = { firmId: request.firmId, caseId: current.id, title: current.title, revision: current.latestRevision, authorId: current.authorId };
+    const notify = (notice: ReviewNotice) => notifyReview(tx, notified, request.actor.userId, notice);
     const audit = (action: Parameters<typeof recordAudit>[1]['action'], details: Record<string, unknown> = {}) =>
       recordAudit(tx, { firmId: request.firmId, actorUserId: request.actor.userId, action, targetType: 'case', targetId: current.id, details: { revision: current.latestRevision, ...details } });
 
@@ -92,6 +103,7 @@ export async function actOnCase(database: Database, request: ReviewRequest): Pro
       }
       await tx.insert(reviewRound).values({ id: randomUUID(), caseId: current.id, firmId: request.firmId, submittedRevision: current.latestRevision, submittedBy: request.actor.userId, reviewerIds });
       await audit('case.submitted', { reviewerIds });
+      await notify({ kind: 'submitted', reviewerIds });
     } else if (request.action === 'return') {
       await tx.update(reviewRound).set({ outcome: 'returned', closedAt: now }).where(eq(reviewRound.id, round!.id));
       await audit('case.returned', { comments: request.reason?.trim() });
@@ -104,6 +116,7 @@ export async function actOnCase(database: Database, request: ReviewRequest): Pro
         body: request.reason!.trim(),
         revisionNumber: current.latestRevision,
       });
+      await notify({ kind: 'returned', comments: request.reason!.trim() });
     } else if (request.action === 'approve') {
       // Approval re-runs every block: the snapshot is what the reviewer checked, with today's solver.
       const [latest] = await tx
@@ -125,9 +138,17 @@ export async function actOnCase(database: Database, request: ReviewRequest): Pro
         await tx.update(reviewRound).set({ outcome: 'published', closedAt: now }).where(eq(reviewRound.id, round!.id));
         if (current.publishedRevision !== null) await audit('case.superseded', { supersededRevision: current.publishedRevision });
         await audit('case.published');
+        await notify({ kind: 'published', approverIds: decision.approverIds });
+      } else {
+        await notify({ kind: 'approved', approvals: decision.approverIds.length, requiredApprovals });
       }
     } else {
       await audit('case.withdrawn', { reason: request.reason?.trim() });
+      const checkers = await tx
+        .select({ reviewerId: approval.reviewerId })
+        .from(approval)
+        .where(and(eq(approval.caseId, current.id), eq(approval.revisionNumber, current.publishedRevision ?? current.latestRevision), isNull(approval.cancelledAt)));
+      await notify({ kind: 'withdrawn', reason: request.reason!.trim(), notifyIds: checkers.map((c) => c.reviewerId) });
     }
 
     await tx
