@@ -214,6 +214,25 @@ describe('password reset by e-mail (through the test app)', () => {
     expect((await call('/reset-password')).status).toBe(400);
   });
 
+  it('limits reset requests per client address (3 a minute) with a clear message', async () => {
+    const app = await startApp(inject('databaseUrl'), 'on');
+    try {
+      const ask = () =>
+        fetch(`${app.url}/forgot-password`, {
+          method: 'POST',
+          redirect: 'manual',
+          headers: { 'content-type': 'application/x-www-form-urlencoded', origin: app.url },
+          body: new URLSearchParams({ email: 'limit.test@firm.example' }).toString(),
+        });
+      for (let i = 0; i < 3; i++) expect((await ask()).status).toBe(200);
+      const limited = await ask();
+      expect(limited.status).toBe(429);
+      expect(await limited.text()).toContain('Too many requests from this computer.');
+    } finally {
+      await app.stop();
+    }
+  });
+
   it('keeps better-auth reset endpoints open and the rest of better-auth closed', async () => {
     const open = await call('/api/auth/request-password-reset', { json: { email: 'nobody.else@firm.example' }, headers: { origin: appUrl() } });
     expect(open.status).toBe(200);
