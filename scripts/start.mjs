@@ -46,8 +46,15 @@ try {
     stdio: 'inherit',
     env: { ...process.env, MAIL_FAKE_DIR: mailFake.dir, MAIL_FAKE_SMTP_PORT: String(mailFake.smtpPort), MAIL_FAKE_HTTP_PORT: String(mailFake.httpPort) },
   });
-  const mailExited = new Promise((resolve) => mail.once('exit', resolve));
-  await Promise.race([waitForPort(mailFake.httpPort, appHost, 15_000), mailExited.then(() => Promise.reject(new Error('the local mail fake stopped at start (see above).')))]);
+  let mailRunning = true;
+  mail.once('exit', () => {
+    mailRunning = false;
+  });
+  await waitForPort(mailFake.httpPort, appHost, 15_000).catch(() => {
+    mail.kill('SIGTERM');
+    throw new Error('the local mail fake did not start (see above).');
+  });
+  if (!mailRunning) throw new Error('the local mail fake stopped at start (see above).');
   step('Serving');
   const server = spawn(process.execPath, [...serverNodeFlags, path.join(projectRoot, 'scripts/serve.mjs')], {
     cwd: projectRoot,
