@@ -4,9 +4,10 @@ import { db } from './db/client';
 import { auth } from './lib/auth';
 import { resolveFirm } from './lib/firms';
 import { errors } from './lib/http';
+import { startMailWorker } from './lib/mail';
 
 /** Routes anyone may open without signing in. */
-const PUBLIC_PAGES = new Set(['/signin', '/join', '/404']);
+const PUBLIC_PAGES = new Set(['/signin', '/join', '/forgot-password', '/reset-password', '/404']);
 
 function isPublic(pathname: string): boolean {
   return PUBLIC_PAGES.has(pathname) || pathname.startsWith('/api/auth/');
@@ -29,6 +30,8 @@ export const onRequest = defineMiddleware(async (context, next) => {
   context.locals.session = null;
   context.locals.firm = null;
   if (context.isPrerendered) return next();
+  // The process's mail delivery worker starts with the first request (once; off without SEQUENT_SMTP_URL).
+  startMailWorker();
 
   const { pathname } = context.url;
   // Cookies better-auth sets while reading the session (a renewed session cache, a cleared

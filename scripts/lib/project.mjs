@@ -13,6 +13,15 @@ export const demoCluster = { root: path.join(dataDir, 'pg'), port: Number(proces
 /** Where `npm start` serves the app. */
 export const appHost = '127.0.0.1';
 export const appPort = Number(process.env.PORT ?? 4321);
+/**
+ * The local SMTP fake that `npm start` runs (mail-fake/server.mjs): its SMTP and mailbox-API
+ * ports on loopback and the folder that keeps its messages.
+ */
+export const mailFake = {
+  smtpPort: Number(process.env.SEQUENT_MAIL_SMTP_PORT ?? 54330),
+  httpPort: Number(process.env.SEQUENT_MAIL_HTTP_PORT ?? 54331),
+  dir: path.join(dataDir, 'mail'),
+};
 const envFile = path.join(dataDir, 'sequent.env');
 
 /**

@@ -4,10 +4,17 @@ import path from 'node:path';
 import { freePort, waitForPort } from '../../scripts/lib/ports.mjs';
 import { projectRoot, serverNodeFlags } from '../../scripts/lib/project.mjs';
 
+/** Where the test app sends mail: the SMTP fake's address and its mailbox API. */
+export interface AppMail {
+  smtpUrl: string;
+  mailboxUrl: string;
+}
+
 /** The environment the test app runs with: the test database, production mode, loopback. */
-export function appEnv(databaseUrl: string, port: number, rateLimit: 'on' | 'off'): NodeJS.ProcessEnv {
+export function appEnv(databaseUrl: string, port: number, rateLimit: 'on' | 'off', mail?: AppMail): NodeJS.ProcessEnv {
   return {
     ...process.env,
+    ...(mail ? { SEQUENT_SMTP_URL: mail.smtpUrl, SEQUENT_DEV_MAILBOX: 'on', SEQUENT_DEV_MAILBOX_URL: mail.mailboxUrl } : {}),
     DATABASE_URL: databaseUrl,
     SEQUENT_BASE_URL: `http://127.0.0.1:${port}`,
     SEQUENT_RATE_LIMIT: rateLimit,
@@ -19,9 +26,9 @@ export function appEnv(databaseUrl: string, port: number, rateLimit: 'on' | 'off
 }
 
 /** A running app server on a free port; resolves once it accepts connections. */
-export async function startApp(databaseUrl: string, rateLimit: 'on' | 'off', prepare?: (env: NodeJS.ProcessEnv) => void) {
+export async function startApp(databaseUrl: string, rateLimit: 'on' | 'off', prepare?: (env: NodeJS.ProcessEnv) => void, mail?: AppMail) {
   const port = await freePort();
-  const env = appEnv(databaseUrl, port, rateLimit);
+  const env = appEnv(databaseUrl, port, rateLimit, mail);
   prepare?.(env);
   const server: ChildProcess = spawn(process.execPath, [...serverNodeFlags, path.join(projectRoot, 'scripts', 'serve.mjs')], { cwd: projectRoot, env, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';

@@ -3,11 +3,21 @@
  * seeded with the demo firms and served on a free loopback port against the test database.
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { mkdtemp } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { startMailFake } from '../../mail-fake/server.mjs';
 import { projectRoot } from '../../scripts/lib/project.mjs';
 import { startApp } from '../helpers/appProcess';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    /** The HTTP API of the SMTP fake the test app sends its mail to (mail-fake/server.mjs). */
+    mailboxUrl: string;
+  }
+}
 
 const entry = path.join(projectRoot, 'dist', 'server', 'entry.mjs');
 
@@ -36,10 +46,30 @@ export default async function setup(project: TestProject) {
   const databaseUrl = process.env.SEQUENT_TEST_DATABASE_URL;
   if (!databaseUrl) throw new Error('tests/setup/database.ts must run before app-server.ts');
   buildIfStale();
-  const app = await startApp(databaseUrl, 'off', (env) => {
-    const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8' });
-    if (seed.status !== 0) throw new Error(`seeding the test database failed:\n${seed.stdout}\n${seed.stderr}`);
-  });
-  project.provide('appUrl', app.url);
-  return app.stop;
+  const mailDir = await mkdtemp(path.join(tmpdir(), 'sequent-test-mail-'));
+  const mail = await startMailFake({ dir: mailDir });
+  const stopMail = async () => {
+    await mail.stop();
+    rmSync(mailDir, { recursive: true, force: true });
+  };
+  try {
+    const app = await startApp(
+      databaseUrl,
+      'off',
+      (env) => {
+        const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8' });
+        if (seed.status !== 0) throw new Error(`seeding the test database failed:\n${seed.stdout}\n${seed.stderr}`);
+      },
+      { smtpUrl: mail.smtpUrl, mailboxUrl: mail.apiUrl },
+    );
+    project.provide('appUrl', app.url);
+    project.provide('mailboxUrl', mail.apiUrl);
+    return async () => {
+      await app.stop();
+      await stopMail();
+    };
+  } catch (error) {
+    await stopMail();
+    throw error;
+  }
 }

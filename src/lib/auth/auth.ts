@@ -4,6 +4,7 @@ import { organization } from 'better-auth/plugins';
 import { db } from '../../db/client';
 import * as schema from '../../db/schema';
 import { config } from '../config';
+import { queuePasswordResetMail, RESET_TOKEN_MINUTES } from './resetMail';
 import { accessControl, authRoles } from './roles';
 
 /** How long a request may trust the session cookie cache before reading the session row again. */
@@ -27,6 +28,12 @@ function createAuth() {
       // Nobody signs themselves up: a firm admin adds people (invitations come later).
       disableSignUp: true,
       minPasswordLength: MIN_PASSWORD_LENGTH,
+      maxPasswordLength: 128,
+      // Forgotten passwords: the link goes out through the mail outbox (src/lib/mail), to
+      // Sequent's /reset-password page; a reset ends every session of the account.
+      resetPasswordTokenExpiresIn: RESET_TOKEN_MINUTES * 60,
+      revokeSessionsOnPasswordReset: true,
+      sendResetPassword: ({ user, token }) => queuePasswordResetMail(user, token),
     },
     session: {
       expiresIn: 60 * 60 * 24 * 7,
@@ -44,7 +51,12 @@ function createAuth() {
       storage: 'database',
       window: 60,
       max: 100,
-      customRules: { '/sign-in/email': { window: 60, max: 10 } },
+      customRules: {
+        '/sign-in/email': { window: 60, max: 10 },
+        // Each request may send a message: few per client address.
+        '/request-password-reset': { window: 60, max: 3 },
+        '/reset-password': { window: 60, max: 10 },
+      },
     },
     advanced: {
       cookiePrefix: 'sequent',

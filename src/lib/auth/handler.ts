@@ -6,7 +6,16 @@ import { auth } from './auth';
  * plugin's member and role endpoints) answers 404: firms, members and roles change only
  * through Sequent's own routes, which enforce its rules (e.g. never remove the last admin).
  */
-const OPEN_AUTH_PATHS = new Set(['/sign-in/email', '/sign-out', '/get-session', '/change-password', '/ok']);
+const OPEN_AUTH_PATHS = new Set([
+  '/sign-in/email',
+  '/sign-out',
+  '/get-session',
+  '/change-password',
+  '/ok',
+  // Forgotten passwords (the /forgot-password and /reset-password pages use them too).
+  '/request-password-reset',
+  '/reset-password',
+]);
 
 /** The better-auth path of a request under /api/auth, e.g. `/sign-in/email`. */
 function authPath(url: URL): string {

@@ -55,3 +55,20 @@ export function safeNextPath(value: string | null | undefined): string {
   if (!value || !value.startsWith('/') || value.startsWith('//') || value.startsWith('/\\')) return '/';
   return value;
 }
+
+/** Asking for a password-reset link. */
+export const ForgotPasswordSchema = z.object({
+  email: z.string().trim().toLowerCase().email('Enter the e-mail address of your account.'),
+});
+
+/** Choosing a new password with the token from a reset link. */
+export const ResetPasswordSchema = z
+  .object({
+    token: z.string().min(1, 'This page needs the link from the reset e-mail.'),
+    password: z
+      .string()
+      .min(MIN_PASSWORD_LENGTH, `The new password needs at least ${MIN_PASSWORD_LENGTH} characters.`)
+      .max(128, 'Keep the password under 128 characters.'),
+    confirm: z.string(),
+  })
+  .refine((v) => v.password === v.confirm, { message: 'The two passwords differ. Type the same one twice.', path: ['confirm'] });
