@@ -57,8 +57,8 @@ export default async function setup(project: TestProject) {
       databaseUrl,
       'off',
       (env) => {
-        const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8' });
-        if (seed.status !== 0) throw new Error(`seeding the test database failed:\n${seed.stdout}\n${seed.stderr}`);
+        const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8', timeout: 180_000 });
+        if (seed.status !== 0) throw new Error(`seeding the test database failed (status ${seed.status}, signal ${seed.signal}${seed.error ? `, ${seed.error.message}` : ""}):\n${seed.stdout}\n${seed.stderr}`);
       },
       { smtpUrl: mail.smtpUrl, mailboxUrl: mail.apiUrl },
     );

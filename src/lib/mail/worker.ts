@@ -65,9 +65,12 @@ export function startMailWorker(): boolean {
   return true;
 }
 
-/** Asks the worker to look at the outbox now (after a commit that queued mail). Never throws. */
+/**
+ * Asks this process's worker, if it runs, to look at the outbox now (after a commit that
+ * queued mail). Never starts one: scripts (the seed) and test processes that queue mail
+ * must be able to exit; the server's worker picks their messages up. Never throws.
+ */
 export function wakeMailWorker(): void {
-  if (globalForMail.sequentMailWorker === undefined) startMailWorker();
   const state = globalForMail.sequentMailWorker;
   if (state) setImmediate(() => void tick(state));
 }
