@@ -4,3 +4,16 @@
  */
 export { ACTION_FROM, afterEdit, decideReview, REVIEW_ACTIONS, type ReviewAction, type ReviewActor, type ReviewDecision, type ReviewRefusal, type ReviewSituation } from './transitions';
 export { actOnCase, type ReviewRequest, type ReviewResult } from './services';
+export { compareEvaluations, DRIFT_TOLERANCE, MAX_TABLE_CELLS_LISTED, withinTolerance, type BlockChange, type BlockDrift, type DriftTolerance, type FigureDrift, type FigureSide } from './drift';
+export {
+  caseDrift,
+  DRIFT_BATCH_SIZE,
+  DRIFT_RUN_STALE_MS,
+  getDriftRun,
+  latestDriftRun,
+  startDriftRun,
+  type CaseDrift,
+  type DriftRunFinding,
+  type DriftRunView,
+  type StartedDriftRun,
+} from './driftCheck';
