@@ -35,9 +35,15 @@ const HIDDEN = new Set(['userId', 'from', 'to', 'reviewerIds', 'slug']);
 
 const MAX_SUMMARY = 200;
 
-function show(value: unknown): string | null {
+/** Free text people wrote, shown in quotes. */
+const QUOTED = new Set(['reason', 'comments', 'title']);
+
+function show(value: unknown, quote: boolean): string | null {
   if (value === null || value === undefined || value === '') return null;
-  if (typeof value === 'string') return value.length > 80 ? `“${value.slice(0, 79)}…”` : `“${value}”`;
+  if (typeof value === 'string') {
+    const text = value.length > 80 ? `${value.slice(0, 79)}…` : value;
+    return quote ? `“${text}”` : text;
+  }
   if (typeof value === 'number' || typeof value === 'boolean') return String(value);
   if (Array.isArray(value)) return value.length === 0 ? null : value.every((v) => typeof v === 'string') ? value.join(', ') : `${value.length} items`;
   return null;
@@ -68,7 +74,7 @@ export function summariseDetails(action: string, details: Record<string, unknown
   if (Array.isArray(d.reviewerIds) && d.reviewerIds.length > 0) parts.push(`${d.reviewerIds.length} reviewer${d.reviewerIds.length === 1 ? '' : 's'} asked`);
   for (const [key, value] of Object.entries(d)) {
     if (HIDDEN.has(key) || key === 'role' || key === 'existingAccount' || key === 'revisionCreated') continue;
-    const text = show(value);
+    const text = show(value, QUOTED.has(key));
     if (text === null) continue;
     if (key === 'approvals' && d.requiredApprovals !== undefined) {
       parts.push(`approval ${text} of ${String(d.requiredApprovals)}`);
