@@ -36,11 +36,13 @@ export function relativeText(figure: Pick<FigureDrift, 'relativeDifference'>): s
   if (r === null) return '';
   const pct = r * 100;
   const digits = Math.abs(pct) >= 10 ? 1 : Math.abs(pct) >= 1 ? 2 : 3;
-  return `${pct > 0 ? '+' : ''}${pct.toFixed(digits)} %`;
+  return `${pct > 0 ? '+' : pct < 0 ? '−' : ''}${Math.abs(pct).toFixed(digits)} %`;
 }
 
 /** "Sequent depth y2" or, for a sweep cell, "Tailwater depth TW at Q = 60.00 m³/s". */
 export function figureName(figure: FigureDrift): string {
-  const base = figure.symbol && figure.symbol !== figure.label ? `${figure.label} ${figure.symbol}` : figure.label;
+  // "Jump type" needs no symbol "type" after it.
+  const repeats = !figure.symbol || figure.label.toLowerCase().split(/\s+/).includes(figure.symbol.toLowerCase());
+  const base = repeats ? figure.label : `${figure.label} ${figure.symbol}`;
   return figure.rowLabel ? `${base} at ${figure.rowLabel}` : base;
 }

@@ -31,12 +31,13 @@ const ROLE_WORDS: Record<string, string> = { engineer: 'Engineer', reviewer: 'Re
 const role = (value: unknown) => ROLE_WORDS[String(value)] ?? String(value);
 
 /** Keys that identify rather than describe (shown in the CSV's JSON, not in the summary). */
-const HIDDEN = new Set(['userId', 'from', 'to', 'reviewerIds', 'slug']);
+// The title is the case's, which the target column already shows.
+const HIDDEN = new Set(['userId', 'from', 'to', 'reviewerIds', 'slug', 'title']);
 
 const MAX_SUMMARY = 200;
 
 /** Free text people wrote, shown in quotes. */
-const QUOTED = new Set(['reason', 'comments', 'title']);
+const QUOTED = new Set(['reason', 'comments']);
 
 function show(value: unknown, quote: boolean): string | null {
   if (value === null || value === undefined || value === '') return null;
