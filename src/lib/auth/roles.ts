@@ -25,6 +25,10 @@ export const ROLE_LABELS: Record<Role, string> = {
 export const statements = {
   case: ['create', 'review', 'withdraw'],
   member: ['read', 'create', 'update'],
+  /** The firm's audit trail: view and export. */
+  audit: ['read'],
+  /** Re-checking the firm's published library against today's solver. */
+  drift: ['run'],
   // The organization plugin's own resources: nobody gets them, our routes do this work.
   organization: ['update', 'delete'],
   invitation: ['create', 'cancel'],
@@ -45,6 +49,8 @@ export const authRoles = {
     case: ['create', 'withdraw'],
     member: ['read', 'create', 'update'],
     invitation: ['create', 'cancel'],
+    audit: ['read'],
+    drift: ['run'],
   }),
 } satisfies Record<Role, unknown>;
 

@@ -25,3 +25,16 @@ export { getReviewPanel, type ApprovalEntry, type Person, type ReviewEvent, type
 export { requiredApprovalsOf, setRequiredApprovals } from './settings';
 export { MAX_REASON_LENGTH, ReviewActionSchema, ReviewSettingSchema, type ReviewActionRequest } from './validation';
 export { listReviewQueue, type QueueEntry, type ReviewQueue } from './queue';
+export { compareEvaluations, DRIFT_TOLERANCE, MAX_TABLE_CELLS_LISTED, withinTolerance, type BlockChange, type BlockDrift, type DriftTolerance, type FigureDrift, type FigureSide } from './drift';
+export {
+  caseDrift,
+  DRIFT_BATCH_SIZE,
+  DRIFT_RUN_STALE_MS,
+  getDriftRun,
+  latestDriftRun,
+  startDriftRun,
+  type CaseDrift,
+  type DriftRunFinding,
+  type DriftRunView,
+  type StartedDriftRun,
+} from './driftCheck';

@@ -23,6 +23,12 @@ describe('can(role, resource, action)', () => {
     ['admin', 'member', 'create', true],
     ['admin', 'case', 'withdraw', true],
     ['admin', 'case', 'review', false],
+    ['admin', 'audit', 'read', true],
+    ['admin', 'drift', 'run', true],
+    ['engineer', 'audit', 'read', false],
+    ['reviewer', 'audit', 'read', false],
+    ['engineer', 'drift', 'run', false],
+    ['reviewer', 'drift', 'run', false],
   ];
   it.each(table)('%s may %s.%s: %s', (role, resource, action, expected) => {
     expect(can(role, resource, action as never)).toBe(expected);
