@@ -1,5 +1,6 @@
 /** The review over HTTP: the JSON routes, the case page's forms, the queue, and who may do what. */
 import { beforeAll, describe, expect, it } from 'vitest';
+import { pool } from '../../src/db/client';
 import { call, sessionOf } from '../helpers/app';
 import { makeFirm, TEST_PASSWORD, type TestFirm } from '../helpers/firms';
 
@@ -113,5 +114,25 @@ describe('the firm review rule', () => {
     expect(saved.status).toBe(200);
     expect(await saved.text()).toContain('two reviewers’ approvals');
     expect(await (await call('/review', { cookie: rev })).text()).toContain('Two reviewers’ approvals publish a case');
+  });
+});
+
+describe('drift on the case page', () => {
+  it('shows a notice naming the block and the figure when the approved snapshot differs from today’s results', async () => {
+    const id = await newCase();
+    await review(id, 'author', { action: 'submit' });
+    await review(id, 'rev', { action: 'approve' });
+    const quiet = await (await call(`/cases/${id}`, { cookie: cookies.colleague })).text();
+    expect(quiet).not.toContain('data-testid="drift-notice"');
+    expect(quiet).toContain('Checked by');
+    // As if the solver had given another sequent depth when the reviewer approved.
+    const { rows } = await pool().query(`select snapshot from approval where case_id = $1`, [id]);
+    const k = rows[0].snapshot.blocks[0].outputs.findIndex((o: { name: string }) => o.name === 'y2');
+    const path = `{blocks,0,outputs,${k},si}`;
+    await pool().query(`update approval set snapshot = jsonb_set(snapshot, $1::text[], to_jsonb((snapshot #>> $1::text[])::float8 * 1.05)) where case_id = $2`, [path, id]);
+    const page = await (await call(`/cases/${id}`, { cookie: cookies.colleague })).text();
+    const notice = page.split('data-testid="drift-notice"')[1]?.split('</section>')[0] ?? '';
+    expect(notice).toContain('outfall');
+    expect(notice).toMatch(/Sequent depth|y2|y<sub>2/);
   });
 });

@@ -7,7 +7,7 @@ import { randomUUID } from 'node:crypto';
 import { and, desc, eq, inArray, isNotNull, isNull, ne, sql } from 'drizzle-orm';
 import type { Database } from '../../db/client';
 import { approval, caseFile, caseRevision, driftRun, user } from '../../db/schema';
-import { evaluateCase } from '../calc';
+import { evaluateCase, type CaseEvaluation } from '../calc';
 import { SOLVER_VERSION } from '../solver';
 import { compareEvaluations, type BlockDrift } from './drift';
 
@@ -67,7 +67,7 @@ function publishedWhere(firmId: string, caseIds?: readonly string[]) {
 }
 
 /** The drift of each of `caseIds` that is published and has a standing approval of its published revision. */
-async function driftOf(database: Reader, firmId: string, caseIds: readonly string[]): Promise<CaseDrift[]> {
+async function driftOf(database: Reader, firmId: string, caseIds: readonly string[], current?: CaseEvaluation): Promise<CaseDrift[]> {
   if (caseIds.length === 0) return [];
   const rows = await database
     .selectDistinctOn([caseFile.id], {
@@ -90,7 +90,7 @@ async function driftOf(database: Reader, firmId: string, caseIds: readonly strin
     const base = { ...row, solverVersionNow: SOLVER_VERSION };
     if (!snapshot || !Array.isArray(snapshot.blocks)) return { ...base, findings: [], problem: UNREADABLE };
     try {
-      return { ...base, findings: compareEvaluations(snapshot, evaluateCase(body)) };
+      return { ...base, findings: compareEvaluations(snapshot, current ?? evaluateCase(body)) };
     } catch {
       return { ...base, findings: [], problem: UNREADABLE };
     }
@@ -100,10 +100,11 @@ async function driftOf(database: Reader, firmId: string, caseIds: readonly strin
 /**
  * Re-runs the published revision of a case with today's solver and compares it with the
  * snapshot of the revision's latest standing approval. Null when the case is not published
- * in this firm (or has no approval to compare with).
+ * in this firm (or has no approval to compare with). `current`, when given, is the published
+ * revision already evaluated with today's solver (the reading page has it cached).
  */
-export async function caseDrift(database: Reader, firmId: string, caseId: string): Promise<CaseDrift | null> {
-  const [found] = await driftOf(database, firmId, [caseId]);
+export async function caseDrift(database: Reader, firmId: string, caseId: string, current?: CaseEvaluation): Promise<CaseDrift | null> {
+  const [found] = await driftOf(database, firmId, [caseId], current);
   return found ?? null;
 }
 
