@@ -62,10 +62,12 @@ let sequence = 0;
 /**
  * Starts the fake: SMTP and HTTP on loopback (port 0 picks free ports), storing messages in
  * `dir` (created if missing; existing messages are kept, so a restart loses nothing).
- * @param {{ dir: string, smtpPort?: number, httpPort?: number }} options
+ * With `control`, the HTTP API also takes `POST /smtp/stop` and `POST /smtp/start`, which
+ * close and reopen the SMTP port (the tests' way to take the mail server down and back).
+ * @param {{ dir: string, smtpPort?: number, httpPort?: number, control?: boolean }} options
  * @returns {Promise<MailFake>}
  */
-export async function startMailFake({ dir, smtpPort = 0, httpPort = 0 }) {
+export async function startMailFake({ dir, smtpPort = 0, httpPort = 0, control = false }) {
   await mkdir(dir, { recursive: true });
 
   /** @param {string} id */
@@ -134,6 +136,14 @@ export async function startMailFake({ dir, smtpPort = 0, httpPort = 0 }) {
         await Promise.all(names.map((n) => rm(path.join(dir, n), { force: true })));
         return json(res, 200, { removed: names.length });
       }
+      if (control && req.method === 'POST' && url.pathname === '/smtp/stop') {
+        await stopSmtp();
+        return json(res, 200, { smtp: 'stopped' });
+      }
+      if (control && req.method === 'POST' && url.pathname === '/smtp/start') {
+        await startSmtp();
+        return json(res, 200, { smtp: 'listening' });
+      }
       if (req.method === 'GET' && one) {
         const id = one[1] ?? '';
         if (!ID_PATTERN.test(id)) return json(res, 404, { error: 'No such message.' });
@@ -165,6 +175,20 @@ export async function startMailFake({ dir, smtpPort = 0, httpPort = 0 }) {
     socket.once('close', () => sockets.delete(socket));
   });
 
+  let smtpListening = true;
+  async function stopSmtp() {
+    if (!smtpListening) return;
+    const closed = new Promise((resolve) => smtp.server.close(() => resolve(null)));
+    for (const socket of sockets) socket.destroy();
+    await closed;
+    smtpListening = false;
+  }
+  async function startSmtp() {
+    if (smtpListening) return;
+    await listen(smtp.server, boundSmtp);
+    smtpListening = true;
+  }
+
   return {
     smtpUrl: `smtp://${HOST}:${boundSmtp}`,
     apiUrl: `http://${HOST}:${boundHttp}`,
@@ -172,8 +196,7 @@ export async function startMailFake({ dir, smtpPort = 0, httpPort = 0 }) {
     httpPort: boundHttp,
     dir,
     async stop() {
-      const smtpClosed = new Promise((resolve) => smtp.server.close(() => resolve(null)));
-      for (const socket of sockets) socket.destroy();
+      const smtpClosed = stopSmtp();
       const apiClosed = new Promise((resolve) => api.close(() => resolve(null)));
       api.closeAllConnections();
       await Promise.all([smtpClosed, apiClosed]);

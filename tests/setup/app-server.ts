@@ -47,7 +47,7 @@ export default async function setup(project: TestProject) {
   if (!databaseUrl) throw new Error('tests/setup/database.ts must run before app-server.ts');
   buildIfStale();
   const mailDir = await mkdtemp(path.join(tmpdir(), 'sequent-test-mail-'));
-  const mail = await startMailFake({ dir: mailDir });
+  const mail = await startMailFake({ dir: mailDir, control: true });
   const stopMail = async () => {
     await mail.stop();
     rmSync(mailDir, { recursive: true, force: true });
