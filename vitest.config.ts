@@ -6,6 +6,7 @@ const alias = { '@': fileURLToPath(new URL('./src', import.meta.url)) };
 /**
  * Three projects, so pure logic runs in milliseconds without a database:
  * - unit: pure modules under src/lib (solver, calc, validation), no I/O;
+ * - contract: the local search fake (search-fake/) through the meilisearch SDK, on loopback;
  * - integration: services and API routes against a throwaway PostgreSQL cluster;
  * - e2e: the built app in Debian's headless Chromium through playwright-core.
  */
@@ -19,6 +20,11 @@ export default defineConfig({
       {
         resolve: { alias },
         test: { name: 'unit', include: ['tests/lib/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        // The search fake driven through the official meilisearch SDK (search-fake/, no database).
+        resolve: { alias },
+        test: { name: 'contract', include: ['tests/search-fake/**/*.test.ts'], environment: 'node', testTimeout: 30_000 },
       },
       {
         resolve: { alias },
