@@ -15,6 +15,7 @@ export interface DemoCase {
     structureType: string;
     sectionShape: string;
     projectReference?: string;
+    summary?: string;
     region?: string;
     tags: string[];
   };
@@ -58,6 +59,7 @@ export function parseDemoCase(file: string, text: string): DemoCase {
       structureType: need('structureType'),
       sectionShape: need('sectionShape'),
       ...(fields.projectReference ? { projectReference: fields.projectReference } : {}),
+      ...(fields.summary ? { summary: fields.summary } : {}),
       ...(fields.region ? { region: fields.region } : {}),
       tags,
     },

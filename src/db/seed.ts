@@ -95,10 +95,16 @@ export async function seedDemo(database: Database, hashPassword: HashPassword): 
   if (firstFirmId) {
     for (const demo of readDemoCases()) {
       const [exists] = await database
-        .select({ id: caseFile.id })
+        .select({ id: caseFile.id, summary: caseFile.summary })
         .from(caseFile)
         .where(and(eq(caseFile.firmId, firstFirmId), eq(caseFile.title, demo.metadata.title)));
-      if (exists) continue;
+      if (exists) {
+        // Databases seeded before cases had summaries get them; nothing else is touched.
+        if (exists.summary === null && demo.metadata.summary) {
+          await database.update(caseFile).set({ summary: demo.metadata.summary }).where(eq(caseFile.id, exists.id));
+        }
+        continue;
+      }
       const [author] = await database.select({ id: user.id }).from(user).where(eq(user.email, demo.authorEmail));
       if (!author) throw new Error(`${demo.file}: no demo account ${demo.authorEmail}`);
       const metadata = CaseMetadataSchema.parse(demo.metadata);

@@ -8,7 +8,7 @@ import MDEditor, { type RefMDEditor } from '@uiw/react-md-editor/nohighlight';
 import '@uiw/react-md-editor/markdown-editor.css';
 import { useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { BLOCK_TEMPLATES } from '../../lib/calc';
-import { CaseMetadataSchema, SECTION_SHAPE_LABELS, STRUCTURE_TYPE_LABELS } from '../../lib/cases/validation';
+import { CaseMetadataSchema, MAX_SUMMARY_LENGTH, SECTION_SHAPE_LABELS, STRUCTURE_TYPE_LABELS } from '../../lib/cases/validation';
 import { CasePreview } from './CasePreview';
 import { browserDraftStore, saveDraft } from './caseApi';
 import { ConflictPanel } from './ConflictPanel';
@@ -21,6 +21,7 @@ export interface EditorMetadata {
   structureType: string;
   sectionShape: string;
   projectReference: string;
+  summary: string;
   region: string;
   tags: string;
 }
@@ -38,6 +39,7 @@ const toPayloadMetadata = (m: EditorMetadata) => ({
   sectionShape: m.sectionShape,
   // Blank means "none": the server stores null.
   projectReference: m.projectReference.trim(),
+  summary: m.summary.trim(),
   region: m.region.trim(),
   tags: m.tags
     .split(',')
@@ -166,6 +168,11 @@ export default function CaseEditor(props: CaseEditorProps) {
           <label className="field-label" htmlFor="case-tags">Tags <span className="font-normal text-ink-faint">(comma-separated)</span></label>
           <input id="case-tags" className="field-input" value={metadata.tags} onChange={(e) => changeMeta('tags', e.target.value)} />
           {fieldErrors.tags && <p className="mt-1 text-sm text-fault">{fieldErrors.tags}</p>}
+        </div>
+        <div className="md:col-span-6">
+          <label className="field-label" htmlFor="case-summary">Summary <span className="font-normal text-ink-faint">(one or two sentences: what the case found; shown in search results)</span></label>
+          <textarea id="case-summary" className="field-input" rows={2} maxLength={MAX_SUMMARY_LENGTH} value={metadata.summary} onChange={(e) => changeMeta('summary', e.target.value)} aria-invalid={fieldErrors.summary ? true : undefined} />
+          {fieldErrors.summary && <p className="mt-1 text-sm text-fault">{fieldErrors.summary}</p>}
         </div>
       </fieldset>
 

@@ -38,6 +38,8 @@ export const caseFile = pgTable(
     structureType: text('structure_type').notNull(),
     sectionShape: text('section_shape').notNull(),
     projectReference: text('project_reference'),
+    /** One or two sentences: what the case found, for search results and lists (null for none). */
+    summary: text('summary'),
     region: text('region'),
     tags: text('tags').array().notNull().default(sql`'{}'::text[]`),
     authorId: text('author_id')

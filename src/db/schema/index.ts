@@ -3,3 +3,4 @@ export * from './audit';
 export * from './cases';
 export * from './review';
 export * from './mail';
+export * from './search';

@@ -17,6 +17,8 @@ export interface NewCase {
   metadata: CaseMetadata;
   /** Markdown body of revision 1; empty when left out. */
   body?: string;
+  /** The case (and revision) whose body this one starts from, recorded in the audit trail. */
+  copiedFrom?: { caseId: string; revision: number };
 }
 
 /**
@@ -66,6 +68,7 @@ export async function createCase(database: Database, input: NewCase): Promise<Ca
       structureType: metadata.structureType,
       sectionShape: metadata.sectionShape,
       projectReference: metadata.projectReference ?? null,
+      summary: metadata.summary ?? null,
       region: metadata.region ?? null,
       tags: metadata.tags,
       authorId: input.authorId,
@@ -92,7 +95,7 @@ export async function createCase(database: Database, input: NewCase): Promise<Ca
       action: 'case.created',
       targetType: 'case',
       targetId: caseId,
-      details: { slug, title: metadata.title, revision: 1, solverVersion: results.solverVersion },
+      details: { slug, title: metadata.title, revision: 1, solverVersion: results.solverVersion, ...(input.copiedFrom ? { copiedFrom: input.copiedFrom } : {}) },
     });
     return (await findCase(tx, input.firmId, caseId))!;
   });

@@ -34,6 +34,7 @@ export const summaryColumns = {
   structureType: caseFile.structureType,
   sectionShape: caseFile.sectionShape,
   projectReference: caseFile.projectReference,
+  summary: caseFile.summary,
   region: caseFile.region,
   tags: caseFile.tags,
   state: caseFile.state,

@@ -45,7 +45,7 @@ export type SaveCaseResult =
   | { ok: false; reason: 'conflict'; latest: LatestRevisionInfo };
 
 type MetadataField = keyof CaseMetadataPatch;
-const METADATA_FIELDS: readonly MetadataField[] = ['title', 'structureType', 'sectionShape', 'projectReference', 'region', 'tags'];
+const METADATA_FIELDS: readonly MetadataField[] = ['title', 'structureType', 'sectionShape', 'projectReference', 'summary', 'region', 'tags'];
 
 const same = (a: unknown, b: unknown) =>
   Array.isArray(a) && Array.isArray(b) ? a.length === b.length && a.every((x, i) => x === b[i]) : a === b;

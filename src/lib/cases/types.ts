@@ -11,6 +11,8 @@ export interface CaseSummary {
   structureType: string;
   sectionShape: string;
   projectReference: string | null;
+  /** One or two sentences on what the case found; null for none. */
+  summary: string | null;
   region: string | null;
   tags: string[];
   state: CaseState;

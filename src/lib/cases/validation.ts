@@ -56,6 +56,9 @@ export const SECTION_SHAPE_LABELS: Record<CaseSectionShape, string> = {
 /** Longest case body accepted, in characters. */
 export const MAX_BODY_LENGTH = 200_000;
 
+/** Longest summary accepted, in characters. */
+export const MAX_SUMMARY_LENGTH = 400;
+
 /** Most tags a case may carry. */
 export const MAX_TAGS = 12;
 
@@ -92,6 +95,8 @@ const metadataShape = {
   sectionShape: z.enum(SECTION_SHAPES, { error: `Choose a section shape: ${SECTION_SHAPES.join(', ')}.` }),
   /** The firm's project number or name, if any (blank for none). */
   projectReference: optionalText(60, 'project reference'),
+  /** One or two sentences on what the case found, shown in search results (blank for none). */
+  summary: optionalText(MAX_SUMMARY_LENGTH, 'summary'),
   /** Where the structure is (river, catchment, country), if worth saying (blank for none). */
   region: optionalText(80, 'region'),
   /** Free keywords, lower-cased, duplicates dropped. */
