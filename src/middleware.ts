@@ -5,6 +5,7 @@ import { auth } from './lib/auth';
 import { resolveFirm } from './lib/firms';
 import { errors } from './lib/http';
 import { startMailWorker } from './lib/mail';
+import { startSearchWorker } from './lib/search';
 
 /** Routes anyone may open without signing in. */
 const PUBLIC_PAGES = new Set(['/signin', '/join', '/forgot-password', '/reset-password', '/404']);
@@ -32,6 +33,8 @@ export const onRequest = defineMiddleware(async (context, next) => {
   if (context.isPrerendered) return next();
   // The process's mail delivery worker starts with the first request (once; off without SEQUENT_SMTP_URL).
   startMailWorker();
+  // Likewise the search worker, which drains the search outbox (off without SEQUENT_SEARCH_URL).
+  startSearchWorker();
 
   const { pathname } = context.url;
   // Cookies better-auth sets while reading the session (a renewed session cache, a cleared

@@ -24,6 +24,15 @@ const ConfigSchema = z.object({
   SEQUENT_DEV_MAILBOX: z.enum(['on', 'off']).default('off'),
   /** The local mail fake's HTTP API that the development mailbox reads (mail-fake/). */
   SEQUENT_DEV_MAILBOX_URL: z.string().url().optional(),
+  /**
+   * The Meilisearch server precedent search uses (npm start runs the local fake in
+   * search-fake/). Unset: search answers 503 and changes wait in the search_outbox table.
+   */
+  SEQUENT_SEARCH_URL: z.string().url().optional(),
+  /** Its API key (a key allowed to search and write documents, or the master key). */
+  SEQUENT_SEARCH_KEY: z.string().min(1).optional(),
+  /** The index holding published cases (every firm's, each search filtered to one firm). */
+  SEQUENT_SEARCH_INDEX: z.string().regex(/^[A-Za-z0-9_-]{1,100}$/, 'must be letters, digits, - or _').default('sequent-cases'),
   NODE_ENV: z.string().default('development'),
 });
 

@@ -8,6 +8,7 @@ import { evaluateCase } from '../calc';
 import { afterEdit } from '../review/transitions';
 import { notifyReview } from '../review/notify';
 import { wakeMailWorker } from '../mail';
+import { queueSearchUpdate, wakeSearchWorker } from '../search';
 import { keyFigures } from './keyFigures';
 import { findCase, findRevision, keyFigureValues, lockCase } from './rows';
 import type { CaseDetail, LatestRevisionInfo } from './types';
@@ -69,6 +70,7 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
   const result = await applySave(database, input);
   // Committed: messages to reviewers whose approvals were cancelled can go now.
   if (result.ok && result.cancelledApprovals.length) wakeMailWorker();
+  if (result.ok && result.changedFields.length && result.case.publishedRevision !== null) wakeSearchWorker();
   return result;
 }
 
@@ -170,6 +172,11 @@ async function applySave(database: Database, input: CaseSave): Promise<SaveCaseR
         kind: 'approvals_cancelled',
         reviewerIds: cancelledApprovals,
       });
+    }
+    // The search document shows the case's metadata (title, summary, tags…) beside the
+    // published revision's figures: a metadata change of a published case reaches it now.
+    if (changedFields.length && current.publishedRevision !== null) {
+      await queueSearchUpdate(tx, { firmId: input.firmId, caseId: current.id, reason: 'edited' });
     }
     const saved = (await findCase(tx, input.firmId, current.id))!;
     return { ok: true, case: saved, revisionCreated, changedFields, cancelledApprovals, startedDraft };

@@ -7,3 +7,4 @@ export { CASE_SANITIZE_SCHEMA } from './sanitizeSchema';
 export { slugify } from './headingIds';
 export { escapeHtml } from './escapeHtml';
 export type { CaseSegment } from './splitSegments';
+export { plainText } from './plainText';

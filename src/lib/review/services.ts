@@ -15,6 +15,7 @@ import { evaluateCase } from '../calc';
 import { lockCase, type CaseState } from '../cases';
 import { SOLVER_VERSION } from '../solver';
 import { wakeMailWorker } from '../mail';
+import { queueSearchUpdate, wakeSearchWorker } from '../search';
 import { openCommentCounts } from './comments';
 import { notifyReview, type ReviewNotice } from './notify';
 import { requiredApprovalsOf } from './settings';
@@ -40,8 +41,11 @@ export type ReviewResult =
 /** Applies `request` to the case; see the module comment. Never throws for a refused action. */
 export async function actOnCase(database: Database, request: ReviewRequest): Promise<ReviewResult> {
   const result = await applyReview(database, request);
-  // The transaction has committed: the messages it queued can go now.
-  if (result.ok) wakeMailWorker();
+  // The transaction has committed: the messages and search updates it queued can go now.
+  if (result.ok) {
+    wakeMailWorker();
+    if (result.publishes || result.state === 'withdrawn') wakeSearchWorker();
+  }
   return result;
 }
 
@@ -151,6 +155,13 @@ function applyReview(database: Database, request: ReviewRequest): Promise<Review
       await notify({ kind: 'withdrawn', reason: request.reason!.trim(), notifyIds: checkers.map((c) => c.reviewerId) });
     }
 
+    // Precedent search follows publication: the new revision replaces the old in the index,
+    // a withdrawn case leaves it. Same transaction, so the index never misses either.
+    if (decision.publishes) {
+      await queueSearchUpdate(tx, { firmId: request.firmId, caseId: current.id, reason: current.publishedRevision === null ? 'published' : 'superseded' });
+    } else if (request.action === 'withdraw') {
+      await queueSearchUpdate(tx, { firmId: request.firmId, caseId: current.id, reason: 'withdrawn' });
+    }
     await tx
       .update(caseFile)
       .set({ state: decision.to, updatedAt: now, ...(decision.publishes ? { publishedRevision: sql`${caseFile.latestRevision}` } : {}) })
