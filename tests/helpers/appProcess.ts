@@ -10,11 +10,18 @@ export interface AppMail {
   mailboxUrl: string;
 }
 
+/** Where the test app indexes published cases: the search fake's address and API key. */
+export interface AppSearch {
+  url: string;
+  apiKey: string;
+}
+
 /** The environment the test app runs with: the test database, production mode, loopback. */
-export function appEnv(databaseUrl: string, port: number, rateLimit: 'on' | 'off', mail?: AppMail): NodeJS.ProcessEnv {
+export function appEnv(databaseUrl: string, port: number, rateLimit: 'on' | 'off', mail?: AppMail, search?: AppSearch): NodeJS.ProcessEnv {
   return {
     ...process.env,
     ...(mail ? { SEQUENT_SMTP_URL: mail.smtpUrl, SEQUENT_DEV_MAILBOX: 'on', SEQUENT_DEV_MAILBOX_URL: mail.mailboxUrl } : {}),
+    ...(search ? { SEQUENT_SEARCH_URL: search.url, SEQUENT_SEARCH_KEY: search.apiKey } : {}),
     DATABASE_URL: databaseUrl,
     SEQUENT_BASE_URL: `http://127.0.0.1:${port}`,
     SEQUENT_RATE_LIMIT: rateLimit,
@@ -26,9 +33,9 @@ export function appEnv(databaseUrl: string, port: number, rateLimit: 'on' | 'off
 }
 
 /** A running app server on a free port; resolves once it accepts connections. */
-export async function startApp(databaseUrl: string, rateLimit: 'on' | 'off', prepare?: (env: NodeJS.ProcessEnv) => void, mail?: AppMail) {
+export async function startApp(databaseUrl: string, rateLimit: 'on' | 'off', prepare?: (env: NodeJS.ProcessEnv) => void, mail?: AppMail, search?: AppSearch) {
   const port = await freePort();
-  const env = appEnv(databaseUrl, port, rateLimit, mail);
+  const env = appEnv(databaseUrl, port, rateLimit, mail, search);
   prepare?.(env);
   const server: ChildProcess = spawn(process.execPath, [...serverNodeFlags, path.join(projectRoot, 'scripts', 'serve.mjs')], { cwd: projectRoot, env, stdio: ['ignore', 'pipe', 'pipe'] });
   let output = '';

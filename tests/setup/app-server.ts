@@ -9,6 +9,8 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { startMailFake } from '../../mail-fake/server.mjs';
+import { startSearchFake } from '../../search-fake/server.mjs';
+import { randomBytes } from 'node:crypto';
 import { projectRoot } from '../../scripts/lib/project.mjs';
 import { startApp } from '../helpers/appProcess';
 
@@ -16,6 +18,9 @@ declare module 'vitest' {
   export interface ProvidedContext {
     /** The HTTP API of the SMTP fake the test app sends its mail to (mail-fake/server.mjs). */
     mailboxUrl: string;
+    /** The search fake the test app indexes into (search-fake/server.mjs, test-only control routes on). */
+    searchUrl: string;
+    searchKey: string;
   }
 }
 
@@ -48,9 +53,13 @@ export default async function setup(project: TestProject) {
   buildIfStale();
   const mailDir = await mkdtemp(path.join(tmpdir(), 'sequent-test-mail-'));
   const mail = await startMailFake({ dir: mailDir, control: true });
+  const searchDir = await mkdtemp(path.join(tmpdir(), 'sequent-test-search-'));
+  const search = await startSearchFake({ dir: searchDir, apiKey: randomBytes(12).toString('hex'), control: true });
   const stopMail = async () => {
     await mail.stop();
+    await search.stop();
     rmSync(mailDir, { recursive: true, force: true });
+    rmSync(searchDir, { recursive: true, force: true });
   };
   try {
     const app = await startApp(
@@ -61,9 +70,12 @@ export default async function setup(project: TestProject) {
         if (seed.status !== 0) throw new Error(`seeding the test database failed (status ${seed.status}, signal ${seed.signal}${seed.error ? `, ${seed.error.message}` : ""}):\n${seed.stdout}\n${seed.stderr}`);
       },
       { smtpUrl: mail.smtpUrl, mailboxUrl: mail.apiUrl },
+      { url: search.url, apiKey: search.apiKey },
     );
     project.provide('appUrl', app.url);
     project.provide('mailboxUrl', mail.apiUrl);
+    project.provide('searchUrl', search.url);
+    project.provide('searchKey', search.apiKey);
     return async () => {
       await app.stop();
       await stopMail();

@@ -23,6 +23,7 @@ export { queueSearchUpdate, type SearchUpdateReason } from './outbox';
 export {
   describeSearchError,
   ensureIndex,
+  facetLabel,
   removeDocuments,
   resetSearchService,
   runSearch,

@@ -47,8 +47,13 @@ export interface PrecedentHit {
 /** A facet value and how many results it would give. */
 export interface FacetCount {
   value: string;
+  /** How the page names it (a structure type's label, a calculation's title; else the value). */
+  label: string;
   count: number;
 }
+
+/** Names a facet value for people. */
+export type FacetLabeller = (facet: FacetParam, value: string) => string;
 
 /** `GET /api/v1/search`. */
 export interface PrecedentResults {
@@ -144,10 +149,10 @@ export function toHit(raw: RawHit): PrecedentHit {
   };
 }
 
-function counts(distribution: Record<string, number> | undefined): FacetCount[] {
+function counts(facet: FacetParam, distribution: Record<string, number> | undefined, label: FacetLabeller): FacetCount[] {
   return Object.entries(distribution ?? {})
     .filter(([, count]) => count > 0)
-    .map(([value, count]) => ({ value, count }))
+    .map(([value, count]) => ({ value, label: label(facet, value), count }))
     .sort((a, b) => b.count - a.count || a.value.localeCompare(b.value));
 }
 
@@ -168,14 +173,15 @@ export function toResults(
   groups: readonly FacetParam[],
   selected: Record<FacetParam, string[]>,
   page: number,
+  label: FacetLabeller = (_facet, value) => value,
 ): Omit<PrecedentResults, 'pending' | 'tookMs'> {
   const [main, ...rest] = results;
   const facets = {} as Record<FacetParam, FacetCount[]>;
   for (const facet of FACET_PARAMS) {
     const index = groups.indexOf(facet);
     const source = index >= 0 ? rest[index] : main;
-    const found = counts(source?.facetDistribution?.[FACETS[facet]]);
-    for (const value of selected[facet]) if (!found.some((f) => f.value === value)) found.push({ value, count: 0 });
+    const found = counts(facet, source?.facetDistribution?.[FACETS[facet]], label);
+    for (const value of selected[facet]) if (!found.some((f) => f.value === value)) found.push({ value, label: label(facet, value), count: 0 });
     facets[facet] = found;
   }
   const total = main?.totalHits ?? main?.estimatedTotalHits ?? 0;

@@ -7,6 +7,9 @@ import { Meilisearch, MeilisearchApiError, MeilisearchError, type Task } from 'm
 import { config } from '../config';
 import type { SearchDocument } from './document';
 import { searchRequests } from './requests';
+import { SECTION_SHAPE_LABELS, STRUCTURE_TYPE_LABELS } from '../cases/validation';
+import { KIND_SPECS, isSolverKind } from '../solver';
+import type { FacetParam } from './params';
 import { toResults, type PrecedentResults, type RawSearchResult } from './results';
 import { INDEX_SETTINGS, PRIMARY_KEY } from './settings';
 import type { ValidPrecedentQuery } from './validation';
@@ -93,6 +96,14 @@ export async function removeDocuments(service: SearchService, caseIds: readonly 
   await settled(service.client.index(uid).deleteDocuments([...caseIds]).waitTask({ timeout: TASK_TIMEOUT_MS }), `Removing ${caseIds.length} case(s)`);
 }
 
+/** How the page names a facet value. */
+export function facetLabel(facet: FacetParam, value: string): string {
+  if (facet === 'structure') return (STRUCTURE_TYPE_LABELS as Record<string, string>)[value] ?? value;
+  if (facet === 'shape') return (SECTION_SHAPE_LABELS as Record<string, string>)[value] ?? value;
+  if (facet === 'kind') return isSolverKind(value) ? KIND_SPECS[value].title : value;
+  return value;
+}
+
 /**
  * Runs a precedent search for `firmId` (the caller's firm, from the session: the filter
  * that scopes the search is added here, never taken from the client). Throws
@@ -102,11 +113,11 @@ export async function runSearch(service: SearchService, firmId: string, query: V
   const { requests, groups } = searchRequests(service.indexUid, firmId, query);
   try {
     const { results } = await service.client.multiSearch({ queries: requests });
-    return toResults(results as unknown as RawSearchResult[], groups, query.facets, query.page);
+    return toResults(results as unknown as RawSearchResult[], groups, query.facets, query.page, facetLabel);
   } catch (error) {
     if (error instanceof MeilisearchApiError && error.cause?.code === 'index_not_found') {
       // Nothing was ever published (or indexed) yet: an empty casebook, not an outage.
-      return toResults([{ hits: [], estimatedTotalHits: 0 }], [], query.facets, query.page);
+      return toResults([{ hits: [], estimatedTotalHits: 0 }], [], query.facets, query.page, facetLabel);
     }
     throw new SearchUnavailableError(`Search is not answering (${describeSearchError(error)}).`, { cause: error });
   }
