@@ -16,8 +16,7 @@ export const MAX_PAGE = 50;
 
 const bound = (what: string, max: number) =>
   z
-    .number()
-    .refine((v) => !Number.isNaN(v), `${what} must be a number.`)
+    .number({ error: `${what} must be a number.` })
     .refine((v) => v >= 0, `${what} cannot be negative.`)
     .refine((v) => v <= max, `${what} must be at most ${max}.`)
     .nullable();
