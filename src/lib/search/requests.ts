@@ -2,6 +2,8 @@
  * A precedent search as the requests the search service answers: filter expressions in the
  * Meilisearch syntax, and the multi-search that gives the hits and the facet counts. Pure.
  *
+ * Takes a validated query (`PrecedentQuerySchema`); numbers are finite or null by then.
+ *
  * **Firm isolation.** Every request's filter is an array whose first element is
  * `firmId = "<the caller's firm>"`; the array form ANDs its elements, each parsed on its
  * own, so nothing in a later element can widen the first. User values only ever appear
@@ -11,8 +13,7 @@
  * counted with every other filter applied but its own, so ticking "Culvert outlet" still
  * shows how many "Outfall" cases there would be. One extra query per group with a selection.
  */
-import { FACET_PARAMS, FACETS, RESULTS_PER_PAGE, type FacetParam, type SearchSort } from './params';
-import type { ValidPrecedentQuery } from './validation';
+import { FACET_PARAMS, FACETS, RESULTS_PER_PAGE, type FacetParam, type PrecedentQuery, type SearchSort } from './params';
 
 /** Marks a matched word in `_formatted` (control characters never typed into a case). */
 export const HIGHLIGHT_PRE = '\u0001';
@@ -48,7 +49,7 @@ function overlaps(minAttribute: string, maxAttribute: string, low: number | null
 }
 
 /** The filter of `query` for `firmId`, optionally without one facet group (for its counts). */
-export function searchFilter(firmId: string, query: ValidPrecedentQuery, without?: FacetParam): string[] {
+export function searchFilter(firmId: string, query: PrecedentQuery, without?: FacetParam): string[] {
   const filter = [`firmId = ${quote(firmId)}`];
   filter.push(...overlaps('fr1Min', 'fr1Max', query.frMin, query.frMax));
   filter.push(...overlaps('dischargeMin', 'dischargeMax', query.dischargeMin, query.dischargeMax));
@@ -116,7 +117,7 @@ export interface SearchRequest {
  * no selection, and Fr₁/discharge stats), then one count-only query per selected group.
  * Without words and with "best match", the newest come first.
  */
-export function searchRequests(indexUid: string, firmId: string, query: ValidPrecedentQuery): { requests: SearchRequest[]; groups: FacetParam[] } {
+export function searchRequests(indexUid: string, firmId: string, query: PrecedentQuery): { requests: SearchRequest[]; groups: FacetParam[] } {
   const q = query.q.trim();
   const selectedGroups = FACET_PARAMS.filter((f) => query.facets[f].length > 0);
   const sort = SORTS[query.sort] ?? (q === '' ? SORTS.newest : undefined);

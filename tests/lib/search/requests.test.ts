@@ -1,10 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { emptyQuery } from '../../../src/lib/search/params';
+import { emptyQuery, type PrecedentQuery } from '../../../src/lib/search/params';
 import { HIGHLIGHT_POST, HIGHLIGHT_PRE, quote, searchFilter, searchRequests } from '../../../src/lib/search/requests';
-import type { ValidPrecedentQuery } from '../../../src/lib/search/validation';
 
-const q = (change: Partial<ValidPrecedentQuery> = {}): ValidPrecedentQuery => ({ ...emptyQuery(), ...change }) as ValidPrecedentQuery;
+const q = (change: Partial<PrecedentQuery> = {}): PrecedentQuery => ({ ...emptyQuery(), ...change });
 
 /** Reads a double-quoted filter string literal back, as the Meilisearch filter syntax defines escapes. */
 function unquote(literal: string): string | null {
