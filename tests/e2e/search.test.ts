@@ -41,7 +41,7 @@ async function signedIn(email: string): Promise<Page> {
 let engineer: Page;
 let otherCulvert = '';
 
-const hitTitles = (page: Page) => page.locator('[data-testid=search-hit] td:first-child > a').allTextContents();
+const hitTitles = (page: Page) => page.locator('[data-testid=hit-title]').allTextContents();
 
 beforeAll(async () => {
   browser = await launchBrowser();
@@ -76,14 +76,14 @@ describe('the search page', () => {
     await engineer.getByRole('link', { name: 'Find a precedent' }).waitFor();
     await engineer.fill('#search-text', 'culvert');
     await engineer.waitForURL(/q=culvert/);
-    await expect.poll(() => hitTitles(engineer)).toEqual(expect.arrayContaining([expect.stringContaining('Kilnbarrow'), expect.stringContaining('Brackenfold')]));
+    await expect.poll(() => hitTitles(engineer), { timeout: 10_000 }).toEqual(expect.arrayContaining([expect.stringContaining('Kilnbarrow'), expect.stringContaining('Brackenfold')]));
     await engineer.fill('#fr-min', '4');
     await engineer.press('#fr-min', 'Enter');
     await engineer.fill('#fr-max', '6');
     await engineer.press('#fr-max', 'Enter');
     await engineer.waitForURL(/frMin=4&frMax=6/);
-    await expect.poll(() => hitTitles(engineer)).toEqual([expect.stringContaining('Kilnbarrow Lane culvert')]);
-    await expect.poll(() => engineer.textContent('[data-testid=search-status]')).toBe('1 published case');
+    await expect.poll(() => hitTitles(engineer), { timeout: 10_000 }).toEqual([expect.stringContaining('Kilnbarrow Lane culvert')]);
+    await expect.poll(() => engineer.textContent('[data-testid=search-status]'), { timeout: 10_000 }).toBe('1 published case');
     // The matched word is marked in the title.
     expect(await engineer.locator('[data-testid=search-hit] mark').first().textContent()).toMatch(/culvert/i);
     await engineer.screenshot({ path: screenshotPath('search-culvert-froude'), fullPage: true });
@@ -108,7 +108,7 @@ describe('the search page', () => {
     const structure = engineer.locator('[data-testid=facet-structure]');
     await structure.getByLabel(/Culvert outlet/).check();
     await engineer.waitForURL(/structure=culvert-outlet/);
-    await expect.poll(() => hitTitles(engineer)).toEqual(expect.arrayContaining([expect.stringContaining('Brackenfold'), expect.stringContaining('Kilnbarrow')]));
+    await expect.poll(() => hitTitles(engineer), { timeout: 10_000 }).toEqual(expect.arrayContaining([expect.stringContaining('Brackenfold'), expect.stringContaining('Kilnbarrow')]));
     // Other structure types still show what they would give (disjunctive counts).
     expect(await structure.locator('li').count()).toBeGreaterThan(1);
   });
@@ -128,7 +128,7 @@ describe('the search page', () => {
     expect(await engineer.textContent('[data-testid=copy-source]')).toContain('Kilnbarrow');
     expect(await engineer.isChecked('input[name=start][value=copy]')).toBe(true);
     await engineer.fill('#title', 'Kilnbarrow-style outlet for the Wenlow crossing');
-    await Promise.all([engineer.waitForURL(/\/cases\/[^/]+\/edit$/), engineer.click('button[type=submit]')]);
+    await Promise.all([engineer.waitForURL(/\/cases\/[^/]+\/edit$/), engineer.getByRole('button', { name: 'Create and open the editor' }).click()]);
     expect(errors).toEqual([]);
   });
 });

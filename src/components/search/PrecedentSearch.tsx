@@ -277,7 +277,7 @@ function ResultsTable({ hits, canCreate, busy }: { hits: PrecedentHit[]; canCrea
           {hits.map((hit) => (
             <tr key={hit.id} data-testid="search-hit">
               <td className="max-w-xl">
-                <a href={`/cases/${hit.id}`} className="font-serif font-bold no-underline"><Highlighted parts={hit.title} /></a>
+                <a href={`/cases/${hit.id}`} className="font-serif font-bold no-underline" data-testid="hit-title"><Highlighted parts={hit.title} /></a>
                 <span className="block text-xs text-ink-faint">
                   {[hit.structureLabel, hit.region, hit.projectReference].filter(Boolean).join(' · ')}
                   {hit.figures.surgeCelerity !== null && ` · front ${figure(hit.figures.surgeCelerity)} m/s`}
@@ -294,12 +294,12 @@ function ResultsTable({ hits, canCreate, busy }: { hits: PrecedentHit[]; canCrea
                   </a>
                 )}
               </td>
-              <td className="num">{figureRange(hit.figures.fr1Min, hit.figures.fr1Max)}</td>
-              <td className="num">{figureRange(hit.figures.dischargeMin, hit.figures.dischargeMax)}</td>
-              <td className="num">
+              <td className="num whitespace-nowrap">{figureRange(hit.figures.fr1Min, hit.figures.fr1Max)}</td>
+              <td className="num whitespace-nowrap">{figureRange(hit.figures.dischargeMin, hit.figures.dischargeMax)}</td>
+              <td className="num whitespace-nowrap">
                 {hit.figures.y1 === null ? '—' : figure(hit.figures.y1)} / {hit.figures.y2 === null ? '—' : figure(hit.figures.y2)}
               </td>
-              <td className="num">{hit.figures.relativeLoss === null ? '—' : figure(hit.figures.relativeLoss)}</td>
+              <td className="num whitespace-nowrap">{hit.figures.relativeLoss === null ? '—' : figure(hit.figures.relativeLoss)}</td>
               <td>
                 {date(hit.publishedAt)}
                 <span className="block text-xs text-ink-faint">
