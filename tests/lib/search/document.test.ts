@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluateCase } from '../../../src/lib/calc';
 import { keyFigures } from '../../../src/lib/cases/keyFigures';
+import { readDemoCases } from '../../../src/db/demoCases';
 import { plainText } from '../../../src/lib/markdown/plainText';
 import { buildSearchDocument, MAX_INDEXED_BODY, type PublishedCaseRow } from '../../../src/lib/search/document';
 
@@ -29,7 +30,20 @@ const row = (body: string, change: Partial<PublishedCaseRow> = {}): PublishedCas
 describe('plainText(markdown)', () => {
   it('keeps the prose and drops markup, calculation blocks and math', () => {
     const body = ['## Context', '', 'The **apron** is _depressed_ by $0.6$ m, see [the note](https://x.example).', '', fence('jump', 'b = 3 m', 'Q = 10 m3/s', 'y1 = 0.3 m'), '', '| a | b |', '|---|---|', '| c | d |', '', '$$E = y + V^2/2g$$'].join('\n');
-    expect(plainText(body)).toBe('Context\nThe apron is depressed by m, see the note.\na\nb\nc\nd');
+    expect(plainText(body)).toBe('Context\nThe apron is depressed by m, see the note.\na b\nc d');
+  });
+
+  it('keeps the words of lists, quotes, code spans and emphasis; drops images, HTML, display math and rules', () => {
+    const body = ['- item `code` ~~old~~ ![sketch](u.png) <b>bold</b> costs \\$5', '> quoted', '1. first', '---', '$$', 'E = y + V^2/2g', '$$', '~~~~', '~~~ not closed by a shorter fence', '~~~~', 'after'].join('\n');
+    expect(plainText(body)).toBe('item code old bold costs $5\nquoted\nfirst\nafter');
+  });
+
+  it('reads every demo case into prose without block inputs or markup', () => {
+    for (const demo of readDemoCases()) {
+      const text = plainText(demo.body);
+      expect(text.length, demo.file).toBeGreaterThan(500);
+      expect(text, demo.file).not.toMatch(/```|\$\$|^#|\]\(|^\s*y1 = /m);
+    }
   });
 });
 
