@@ -181,6 +181,29 @@ export async function resolveThread(
 const commentAuthor = alias(user, 'comment_author');
 const resolver = alias(user, 'comment_resolver');
 
+/** One comment row as threads are built from it (a root when `threadId` is null). */
+export interface CommentRow extends CommentEntry {
+  threadId: string | null;
+  blockIndex: number | null;
+  blockTitle: string | null;
+  resolvedAt: Date | null;
+  resolvedByName: string | null;
+}
+
+/** Threads from comment rows ordered oldest first: roots in order, each with its replies. */
+export function threadsOf(rows: readonly CommentRow[]): CommentThread[] {
+  const threads = new Map<string, CommentThread>();
+  for (const row of rows) {
+    const entry: CommentEntry = { id: row.id, authorId: row.authorId, authorName: row.authorName, body: row.body, revisionNumber: row.revisionNumber, createdAt: row.createdAt };
+    if (row.threadId === null) {
+      threads.set(row.id, { ...entry, blockIndex: row.blockIndex, blockTitle: row.blockTitle, resolvedAt: row.resolvedAt, resolvedByName: row.resolvedByName, replies: [] });
+    } else {
+      threads.get(row.threadId)?.replies.push(entry);
+    }
+  }
+  return [...threads.values()];
+}
+
 /** Every thread of the case, oldest first, with replies; empty for another firm's case. */
 export async function listComments(database: Queryable, firmId: string, caseId: string): Promise<CommentThread[]> {
   const rows = await database
@@ -202,16 +225,7 @@ export async function listComments(database: Queryable, firmId: string, caseId: 
     .leftJoin(resolver, eq(resolver.id, reviewComment.resolvedBy))
     .where(and(eq(reviewComment.firmId, firmId), eq(reviewComment.caseId, caseId)))
     .orderBy(asc(reviewComment.createdAt), asc(reviewComment.id));
-  const threads = new Map<string, CommentThread>();
-  for (const row of rows) {
-    const entry: CommentEntry = { id: row.id, authorId: row.authorId, authorName: row.authorName, body: row.body, revisionNumber: row.revisionNumber, createdAt: row.createdAt };
-    if (row.threadId === null) {
-      threads.set(row.id, { ...entry, blockIndex: row.blockIndex, blockTitle: row.blockTitle, resolvedAt: row.resolvedAt, resolvedByName: row.resolvedByName, replies: [] });
-    } else {
-      threads.get(row.threadId)?.replies.push(entry);
-    }
-  }
-  return [...threads.values()];
+  return threadsOf(rows);
 }
 
 /** Unresolved threads on the case, in all and started by `userId` (who may not approve while any is open). */
