@@ -1,7 +1,7 @@
 /** Review comments against PostgreSQL: threads, block anchors, resolving, and the approval rule they feed. */
 import { describe, expect, it } from 'vitest';
 import { db } from '../../src/db/client';
-import { createCase, type CaseMetadata } from '../../src/lib/cases';
+import { createCase, saveCase, type CaseMetadata } from '../../src/lib/cases';
 import { actOnCase, addComment, listComments, openCommentCounts, resolveThread, type ReviewRequest } from '../../src/lib/review';
 import { makeFirm } from '../helpers/firms';
 
@@ -13,7 +13,7 @@ async function setUp() {
   const created = await createCase(db(), { firmId: f.firm.id, authorId: f.people.author!.userId, metadata, body: BODY });
   const who = (k: string) => ({ userId: f.people[k]!.userId, role: f.people[k]!.role });
   const comment = (k: string, body: string, extra: { threadId?: string; blockIndex?: number } = {}) =>
-    addComment(db(), { firmId: f.firm.id, caseId: created.id, commenter: who(k), comment: { body, ...extra }, blockTitles: ['Hydraulic jump — toe'] });
+    addComment(db(), { firmId: f.firm.id, caseId: created.id, commenter: who(k), comment: { body, ...extra } });
   const act = (k: string, action: ReviewRequest['action'], reason?: string) =>
     actOnCase(db(), { firmId: f.firm.id, caseId: created.id, actor: who(k), action, ...(reason ? { reason } : {}) });
   const resolve = (k: string, threadId: string, resolved = true) =>
@@ -31,12 +31,21 @@ describe('review comments', () => {
     await comment('rev', 'Add the tailwater rating source.');
     const threads = await listComments(db(), f.firm.id, caseId);
     expect(threads).toHaveLength(2);
-    expect(threads[0]).toMatchObject({ blockIndex: 0, blockTitle: 'Hydraulic jump — toe', replies: [{ body: 'Yes: 0.61 × gate opening.' }] });
+    expect(threads[0]).toMatchObject({ blockIndex: 0, blockTitle: 'Stationary hydraulic jump (toe)', replies: [{ body: 'Yes: 0.61 × gate opening.' }] });
     expect(threads[1]).toMatchObject({ blockIndex: null, blockTitle: null, replies: [] });
     // A block index past the last block anchors to the whole case.
     const beyond = await comment('rev', 'Which block?', { blockIndex: 7 });
     expect(beyond.ok).toBe(true);
     expect((await listComments(db(), f.firm.id, caseId))[2]).toMatchObject({ blockIndex: null });
+  });
+
+  it('names a block anchor from the latest revision’s stored results', async () => {
+    const { f, caseId, comment } = await setUp();
+    const gate = '\n```gate sluice\nb = 4 m\na = 0.5 m\nCc = 0.61\ny0 = 3.2 m\n```\n';
+    expect(await saveCase(db(), { firmId: f.firm.id, caseId, userId: f.people.author!.userId, baseRevision: 1, body: BODY + gate })).toMatchObject({ ok: true });
+    const onGate = await comment('rev', 'Which contraction coefficient source?', { blockIndex: 1 });
+    expect(onGate).toMatchObject({ ok: true, revisionNumber: 2 });
+    expect((await listComments(db(), f.firm.id, caseId))[0]).toMatchObject({ blockIndex: 1, blockTitle: 'Sluice gate (free flow) (sluice)', revisionNumber: 2 });
   });
 
   it('lets only the author and reviewers take part, and only in the firm', async () => {

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { db, pool } from '../../src/db/client';
 import { approval, driftRun } from '../../src/db/schema';
 import { createCase, type CaseMetadata } from '../../src/lib/cases';
-import { actOnCase, caseDrift, DRIFT_BATCH_SIZE, getDriftRun, latestDriftRun, startDriftRun, type DriftRunView } from '../../src/lib/review';
+import { actOnCase, caseDrift, caseDriftFrom, DRIFT_BATCH_SIZE, getCaseReview, getDriftRun, latestDriftRun, startDriftRun, type DriftRunView } from '../../src/lib/review';
 import { SOLVER_VERSION } from '../../src/lib/solver';
 import { call, sessionOf } from '../helpers/app';
 import { makeFirm, TEST_PASSWORD, type TestFirm } from '../helpers/firms';
@@ -81,6 +81,22 @@ describe('caseDrift', () => {
     const caseId = await publish(f, 'Published basin');
     expect(await caseDrift(db(), other.firm.id, caseId)).toBeNull();
     expect(await caseDrift(db(), f.firm.id, randomUUID())).toBeNull();
+  });
+
+  it('gives the case page the basis caseDrift uses, compared again once the approval row changes, and none once withdrawn', async () => {
+    const f = await firmOf();
+    const caseId = await publish(f, 'Page basis basin');
+    const { driftBasis } = await getCaseReview(db(), f.firm.id, caseId);
+    expect(driftBasis).toMatchObject({ caseId, title: 'Page basis basin', revision: 1, solverVersionApproved: SOLVER_VERSION });
+    expect(await caseDriftFrom(db(), f.firm.id, driftBasis!)).toEqual(await caseDrift(db(), f.firm.id, caseId));
+    await scaleApprovedOutput(caseId, 'y2', 1.02);
+    const changed = (await getCaseReview(db(), f.firm.id, caseId)).driftBasis!;
+    expect(changed.rowVersion).not.toBe(driftBasis!.rowVersion);
+    expect((await caseDriftFrom(db(), f.firm.id, changed)).findings).toHaveLength(1);
+    const rev = { userId: f.people.rev!.userId, role: f.people.rev!.role };
+    expect(await actOnCase(db(), { firmId: f.firm.id, caseId, actor: rev, action: 'withdraw', reason: 'Superseded by the 2031 survey.' })).toMatchObject({ ok: true });
+    expect((await getCaseReview(db(), f.firm.id, caseId)).driftBasis).toBeNull();
+    expect(await caseDrift(db(), f.firm.id, caseId)).toBeNull();
   });
 
   it('says so when an approved snapshot cannot be read', async () => {

@@ -9,7 +9,7 @@ import { and, asc, eq, isNull, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { z } from 'zod';
 import type { Database, Queryable } from '../../db/client';
-import { reviewComment, user } from '../../db/schema';
+import { caseRevision, reviewComment, user } from '../../db/schema';
 import { can, type Role } from '../auth/roles';
 import { lockCase } from '../cases';
 import { wakeMailWorker } from '../mail';
@@ -69,9 +69,27 @@ export const COMMENT_FAILURES: Record<CommentRefusal, { status: number; code: st
   withdrawn: { status: 409, code: 'withdrawn', message: 'This case has been withdrawn: its review is closed.' },
 };
 
+/** How a block is named in a comment's anchor ("Title (name)"). */
+export function blockAnchorTitle(block: { readonly title: string; readonly name: string | null }): string {
+  return block.name ? `${block.title} (${block.name})` : block.title;
+}
+
 /** How each block of an evaluation is named in a comment's anchor ("Title (name)"). */
 export function blockAnchorTitles(evaluation: { readonly blocks: readonly { readonly title: string; readonly name: string | null }[] }): string[] {
-  return evaluation.blocks.map((b) => (b.name ? `${b.title} (${b.name})` : b.title));
+  return evaluation.blocks.map(blockAnchorTitle);
+}
+
+/**
+ * The anchor title of block `index` in the stored results of revision `revision`, or null
+ * when the revision has no such block. Reads only that block's title and name, not the results.
+ */
+async function storedBlockTitle(tx: Queryable, input: { firmId: string; caseId: string; revision: number; index: number }): Promise<string | null> {
+  const block = sql`${caseRevision.results} -> 'blocks' -> ${input.index}::int`;
+  const [row] = await tx
+    .select({ title: sql<string | null>`${block} ->> 'title'`, name: sql<string | null>`${block} ->> 'name'` })
+    .from(caseRevision)
+    .where(and(eq(caseRevision.firmId, input.firmId), eq(caseRevision.caseId, input.caseId), eq(caseRevision.number, input.revision)));
+  return row?.title == null ? null : blockAnchorTitle({ title: row.title, name: row.name });
 }
 
 /** Who is commenting. */
@@ -89,13 +107,14 @@ export type AddCommentResult =
 
 /**
  * Adds a comment to the case (a new thread, or a reply when `threadId` is given). A block
- * anchor records the block's title from `blockTitles` (the blocks of the latest revision)
- * so it still reads after edits; an index past the last block anchors to the whole case.
- * Colleagues mentioned as `@name` (their e-mail before the @) are told by e-mail.
+ * anchor records the block's title as the latest revision's stored results name it (read
+ * in the same transaction, under the case lock) so it still reads after edits; an index
+ * past the last block anchors to the whole case. Colleagues mentioned as `@name` (their
+ * e-mail before the @) are told by e-mail.
  */
 export async function addComment(
   database: Database,
-  input: { firmId: string; caseId: string; commenter: Commenter; comment: NewComment; blockTitles?: readonly string[] },
+  input: { firmId: string; caseId: string; commenter: Commenter; comment: NewComment },
 ): Promise<AddCommentResult> {
   const result = await database.transaction(async (tx): Promise<AddCommentResult> => {
     const current = await lockCase(tx, input.firmId, input.caseId);
@@ -118,7 +137,8 @@ export async function addComment(
       }
     }
     const blockIndex = threadId ? null : (input.comment.blockIndex ?? null);
-    const blockTitle = blockIndex === null ? null : (input.blockTitles?.[blockIndex] ?? null);
+    const blockTitle =
+      blockIndex === null ? null : await storedBlockTitle(tx, { firmId: input.firmId, caseId: current.id, revision: current.latestRevision, index: blockIndex });
     const id = randomUUID();
     await tx.insert(reviewComment).values({
       id,
@@ -161,6 +181,29 @@ export async function resolveThread(
 const commentAuthor = alias(user, 'comment_author');
 const resolver = alias(user, 'comment_resolver');
 
+/** One comment row as threads are built from it (a root when `threadId` is null). */
+export interface CommentRow extends CommentEntry {
+  threadId: string | null;
+  blockIndex: number | null;
+  blockTitle: string | null;
+  resolvedAt: Date | null;
+  resolvedByName: string | null;
+}
+
+/** Threads from comment rows ordered oldest first: roots in order, each with its replies. */
+export function threadsOf(rows: readonly CommentRow[]): CommentThread[] {
+  const threads = new Map<string, CommentThread>();
+  for (const row of rows) {
+    const entry: CommentEntry = { id: row.id, authorId: row.authorId, authorName: row.authorName, body: row.body, revisionNumber: row.revisionNumber, createdAt: row.createdAt };
+    if (row.threadId === null) {
+      threads.set(row.id, { ...entry, blockIndex: row.blockIndex, blockTitle: row.blockTitle, resolvedAt: row.resolvedAt, resolvedByName: row.resolvedByName, replies: [] });
+    } else {
+      threads.get(row.threadId)?.replies.push(entry);
+    }
+  }
+  return [...threads.values()];
+}
+
 /** Every thread of the case, oldest first, with replies; empty for another firm's case. */
 export async function listComments(database: Queryable, firmId: string, caseId: string): Promise<CommentThread[]> {
   const rows = await database
@@ -182,16 +225,7 @@ export async function listComments(database: Queryable, firmId: string, caseId: 
     .leftJoin(resolver, eq(resolver.id, reviewComment.resolvedBy))
     .where(and(eq(reviewComment.firmId, firmId), eq(reviewComment.caseId, caseId)))
     .orderBy(asc(reviewComment.createdAt), asc(reviewComment.id));
-  const threads = new Map<string, CommentThread>();
-  for (const row of rows) {
-    const entry: CommentEntry = { id: row.id, authorId: row.authorId, authorName: row.authorName, body: row.body, revisionNumber: row.revisionNumber, createdAt: row.createdAt };
-    if (row.threadId === null) {
-      threads.set(row.id, { ...entry, blockIndex: row.blockIndex, blockTitle: row.blockTitle, resolvedAt: row.resolvedAt, resolvedByName: row.resolvedByName, replies: [] });
-    } else {
-      threads.get(row.threadId)?.replies.push(entry);
-    }
-  }
-  return [...threads.values()];
+  return threadsOf(rows);
 }
 
 /** Unresolved threads on the case, in all and started by `userId` (who may not approve while any is open). */

@@ -6,10 +6,11 @@
 import { randomUUID } from 'node:crypto';
 import { and, desc, eq, inArray, isNotNull, isNull, ne, sql } from 'drizzle-orm';
 import type { Database } from '../../db/client';
-import { approval, caseFile, caseRevision, driftRun, user } from '../../db/schema';
-import { evaluateCase, type CaseEvaluation } from '../calc';
+import { approval, caseFile, driftRun, user } from '../../db/schema';
+import type { CaseEvaluation } from '../calc';
 import { SOLVER_VERSION } from '../solver';
-import { compareEvaluations, type BlockDrift } from './drift';
+import type { BlockDrift } from './drift';
+import { approvalRowVersion, compareApprovals, type ApprovalVersion } from './driftCache';
 
 /** A published case's results today against the snapshot of its latest standing approval. */
 export interface CaseDrift {
@@ -27,6 +28,12 @@ export interface CaseDrift {
   /** Set when the approved snapshot could not be compared (unreadable); findings is then empty. */
   problem?: string;
 }
+
+/**
+ * What a drift check starts from: the published case and its latest standing approval
+ * (without the snapshot, which the comparison cache usually makes unnecessary to read).
+ */
+export type DriftBasis = Omit<CaseDrift, 'solverVersionNow' | 'findings' | 'problem'> & ApprovalVersion;
 
 /** A case with drift as a library run stores it (JSON: the approval time as ISO text). */
 export type DriftRunFinding = Omit<CaseDrift, 'approvedAt'> & { approvedAt: string };
@@ -54,8 +61,6 @@ export const DRIFT_RUN_STALE_MS = 15 * 60_000;
 /** What the read-only queries here need: the client or a transaction. */
 type Reader = Pick<Database, 'select' | 'selectDistinctOn'>;
 
-const UNREADABLE = 'The approved snapshot of this case could not be read, so its results were not compared. Ask a reviewer to look at the case.';
-
 /** Published (not withdrawn) cases of the firm, optionally only `caseIds`. */
 function publishedWhere(firmId: string, caseIds?: readonly string[]) {
   return and(
@@ -66,35 +71,36 @@ function publishedWhere(firmId: string, caseIds?: readonly string[]) {
   );
 }
 
-/** The drift of each of `caseIds` that is published and has a standing approval of its published revision. */
-async function driftOf(database: Reader, firmId: string, caseIds: readonly string[], current?: CaseEvaluation): Promise<CaseDrift[]> {
+/** The bases of each of `caseIds` that is published and has a standing approval of its published revision. */
+async function basesOf(database: Reader, firmId: string, caseIds: readonly string[]): Promise<DriftBasis[]> {
   if (caseIds.length === 0) return [];
-  const rows = await database
+  return database
     .selectDistinctOn([caseFile.id], {
       caseId: caseFile.id,
       title: caseFile.title,
-      revision: caseRevision.number,
-      body: caseRevision.body,
+      revision: approval.revisionNumber,
+      approvalId: approval.id,
+      rowVersion: approvalRowVersion,
       approvedBy: user.name,
       approvedAt: approval.createdAt,
       solverVersionApproved: approval.solverVersion,
-      snapshot: approval.snapshot,
     })
     .from(caseFile)
-    .innerJoin(caseRevision, and(eq(caseRevision.caseId, caseFile.id), eq(caseRevision.number, caseFile.publishedRevision)))
     .innerJoin(approval, and(eq(approval.caseId, caseFile.id), eq(approval.firmId, firmId), eq(approval.revisionNumber, caseFile.publishedRevision), isNull(approval.cancelledAt)))
     .innerJoin(user, eq(user.id, approval.reviewerId))
     .where(publishedWhere(firmId, caseIds))
     .orderBy(caseFile.id, desc(approval.createdAt));
-  return rows.map(({ body, snapshot, ...row }) => {
-    const base = { ...row, solverVersionNow: SOLVER_VERSION };
-    if (!snapshot || !Array.isArray(snapshot.blocks)) return { ...base, findings: [], problem: UNREADABLE };
-    try {
-      return { ...base, findings: compareEvaluations(snapshot, current ?? evaluateCase(body)) };
-    } catch {
-      return { ...base, findings: [], problem: UNREADABLE };
-    }
-  });
+}
+
+/** The drift of each basis; `current` only when there is one basis (its published revision, evaluated today). */
+async function driftFrom(database: Pick<Database, 'select'>, firmId: string, bases: readonly DriftBasis[], current?: CaseEvaluation): Promise<CaseDrift[]> {
+  const comparisons = await compareApprovals(database, firmId, bases, bases.length === 1 ? current : undefined);
+  return bases.map(({ approvalId, rowVersion: _version, ...basis }) => ({ ...basis, solverVersionNow: SOLVER_VERSION, ...comparisons.get(approvalId)! }));
+}
+
+/** The drift of each of `caseIds` that is published and has a standing approval of its published revision. */
+async function driftOf(database: Reader, firmId: string, caseIds: readonly string[]): Promise<CaseDrift[]> {
+  return driftFrom(database, firmId, await basesOf(database, firmId, caseIds));
 }
 
 /**
@@ -104,8 +110,17 @@ async function driftOf(database: Reader, firmId: string, caseIds: readonly strin
  * revision already evaluated with today's solver (the reading page has it cached).
  */
 export async function caseDrift(database: Reader, firmId: string, caseId: string, current?: CaseEvaluation): Promise<CaseDrift | null> {
-  const [found] = await driftOf(database, firmId, [caseId], current);
-  return found ?? null;
+  const [basis] = await basesOf(database, firmId, [caseId]);
+  return basis ? caseDriftFrom(database, firmId, basis, current) : null;
+}
+
+/**
+ * {@link caseDrift} from a basis already read (the case page has it from `getCaseReview`):
+ * no query at all when the comparison is cached, else one for the snapshot.
+ */
+export async function caseDriftFrom(database: Pick<Database, 'select'>, firmId: string, basis: DriftBasis, current?: CaseEvaluation): Promise<CaseDrift> {
+  const [found] = await driftFrom(database, firmId, [basis], current);
+  return found!;
 }
 
 const runColumns = {

@@ -21,19 +21,21 @@ export {
   type CommentThread,
   type NewComment,
 } from './comments';
-export { getReviewPanel, type ApprovalEntry, type Person, type ReviewEvent, type ReviewPanel } from './panel';
+export { getCaseReview, getReviewPanel, type ApprovalEntry, type CaseReview, type Person, type ReviewEvent, type ReviewPanel } from './panel';
 export { requiredApprovalsOf, setRequiredApprovals } from './settings';
 export { MAX_REASON_LENGTH, ReviewActionSchema, ReviewSettingSchema, type ReviewActionRequest } from './validation';
 export { listReviewQueue, type QueueEntry, type ReviewQueue } from './queue';
 export { compareEvaluations, DRIFT_TOLERANCE, MAX_TABLE_CELLS_LISTED, withinTolerance, type BlockChange, type BlockDrift, type DriftTolerance, type FigureDrift, type FigureSide } from './drift';
 export {
   caseDrift,
+  caseDriftFrom,
   DRIFT_BATCH_SIZE,
   DRIFT_RUN_STALE_MS,
   getDriftRun,
   latestDriftRun,
   startDriftRun,
   type CaseDrift,
+  type DriftBasis,
   type DriftRunFinding,
   type DriftRunView,
   type StartedDriftRun,

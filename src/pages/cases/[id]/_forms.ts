@@ -6,11 +6,9 @@
  */
 import type { Database } from '../../../db/client';
 import type { Role } from '../../../lib/auth';
-import { getCase } from '../../../lib/cases';
 import {
   actOnCase,
   addComment,
-  blockAnchorTitles,
   COMMENT_FAILURES,
   NewCommentSchema,
   resolveThread,
@@ -81,15 +79,7 @@ export async function handleCaseForm(
     });
     const refusal = (status: number, message: string): FormRefusal => ({ status, message, intent: values.threadId ? 'reply' : 'comment', threadId: values.threadId, values });
     if (!parsed.success) return refusal(422, firstIssue(parsed.error));
-    const found = await getCase(database, input.firmId, input.caseId);
-    if (!found) return refusal(404, COMMENT_FAILURES.not_found.message);
-    const result = await addComment(database, {
-      firmId: input.firmId,
-      caseId: input.caseId,
-      commenter: actor,
-      comment: parsed.data,
-      blockTitles: blockAnchorTitles(found.revision.results),
-    });
+    const result = await addComment(database, { firmId: input.firmId, caseId: input.caseId, commenter: actor, comment: parsed.data });
     if (!result.ok) return refusal(COMMENT_FAILURES[result.reason].status, COMMENT_FAILURES[result.reason].message);
     return back('commented', `#thread-${result.threadId}`);
   }

@@ -2,7 +2,7 @@ import type { APIRoute } from 'astro';
 import { db } from '../../../../../../db/client';
 import { getCase } from '../../../../../../lib/cases';
 import { json, jsonError, parseJsonBody, requireMember } from '../../../../../../lib/http';
-import { addComment, blockAnchorTitles, COMMENT_FAILURES, listComments, NewCommentSchema } from '../../../../../../lib/review';
+import { addComment, COMMENT_FAILURES, listComments, NewCommentSchema } from '../../../../../../lib/review';
 import { caseNotFound } from '../../_shared';
 
 /** The case's comment threads, oldest first, with replies. */
@@ -21,14 +21,11 @@ export const POST: APIRoute = async (context) => {
   if (caller instanceof Response) return caller;
   const body = await parseJsonBody(context.request, NewCommentSchema);
   if (!body.ok) return body.response;
-  const found = await getCase(db(), caller.firm.firm.id, context.params.id ?? '');
-  if (!found) return caseNotFound();
   const result = await addComment(db(), {
     firmId: caller.firm.firm.id,
-    caseId: found.id,
+    caseId: context.params.id ?? '',
     commenter: { userId: caller.user.id, role: caller.firm.role },
     comment: body.data,
-    blockTitles: blockAnchorTitles(found.revision.results),
   });
   if (!result.ok) {
     const failure = COMMENT_FAILURES[result.reason];
