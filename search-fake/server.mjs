@@ -1,4 +1,5 @@
 #!/usr/bin/env node
+// @ts-check
 // The local stand-in for a Meilisearch server: the part of Meilisearch's HTTP API that the
 // official `meilisearch` SDK (0.62) calls, on loopback, so Sequent can talk to it through
 // the SDK exactly as it would to a real server. Indexes, documents, settings, asynchronous
