@@ -475,7 +475,12 @@ export class Engine {
 
   /** @param {Index} index */
   indexStats(index) {
-    const raw = index.records().reduce((sum, rec) => sum + Buffer.byteLength(JSON.stringify(rec.doc)), 0);
+    // The documents' size is measured once per version of the index.
+    const holder = /** @type {Index & { _rawSize?: { version: number, bytes: number } }} */ (index);
+    if (!holder._rawSize || holder._rawSize.version !== index.version) {
+      holder._rawSize = { version: index.version, bytes: index.records().reduce((sum, rec) => sum + Buffer.byteLength(JSON.stringify(rec.doc)), 0) };
+    }
+    const raw = holder._rawSize.bytes;
     return {
       numberOfDocuments: index.size,
       rawDocumentDbSize: raw,

@@ -268,8 +268,8 @@ function routes(engine, control) {
     r('POST', '/multi-search', 'json', ({ body }) => multiSearch(engine, body, features())),
 
     r('GET', '/tasks', 'none', ({ query }) => engine.queue.list(query)),
-    r('POST', '/tasks/cancel', 'optional', ({ query }) => engine.cancelTasks(query), 200),
-    r('DELETE', '/tasks', 'none', ({ query }) => engine.deleteTasks(query), 200),
+    r('POST', '/tasks/cancel', 'optional', ({ query }) => engine.cancelTasks(query), 202),
+    r('DELETE', '/tasks', 'none', ({ query }) => engine.deleteTasks(query), 202),
     r('GET', '/tasks/([^/]+)', 'none', ({ params }) => {
       const raw = /** @type {string} */ (params[0]);
       if (!/^\d+$/.test(raw)) throw badRequest('invalid_task_uids', `Invalid value in parameter \`taskUid\`: could not parse \`${raw}\` as a positive integer`);

@@ -383,6 +383,13 @@ describe('tasks', () => {
     expect((await h.client.tasks.getTasks({ indexUids: ['tasks-delete'] })).total).toBe(0);
     expect(await apiError(h.client.tasks.deleteTasks({}))).toMatchObject({ status: 400, code: 'missing_task_filters' });
   });
+
+  it('cancels only tasks still waiting', async () => {
+    const done = await h.client.index('tasks-cancel').addDocuments([{ id: 1 }]).waitTask();
+    const cancel = succeeded(await h.client.tasks.cancelTasks({ uids: [done.uid] }).waitTask());
+    expect(cancel).toMatchObject({ type: 'taskCancelation', indexUid: null, details: { matchedTasks: 1, canceledTasks: 0 } });
+    expect((await h.client.tasks.getTask(done.uid)).status).toBe('succeeded');
+  });
 });
 
 describe('swapping indexes', () => {
