@@ -1,4 +1,5 @@
 #!/usr/bin/env node
+// @ts-check
 // Timings of the search fake on a synthetic corpus shaped like Sequent's cases: 10,000
 // documents of ~15 fields (title, a ~300-character summary, a ~3,000-character body, keyword
 // arrays, ~10 numbers), added through the SDK in batches of 500; then the query the app

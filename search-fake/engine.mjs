@@ -1,3 +1,4 @@
+// @ts-check
 // The fake's state: its indexes, the task queue, experimental features, and their files.
 // Write operations validate what Meilisearch validates at once (answering 400 before any
 // task exists) and enqueue a task for the rest, which can still fail (unknown index, bad
@@ -237,14 +238,15 @@ export class Engine {
       const list = swap.indexes;
       if (!Array.isArray(list)) throw invalidType('invalid_swap_indexes', `[${i}].indexes`, 'an array', list);
       if (list.length !== 2) throw badRequest('invalid_swap_indexes', `Invalid value at \`[${i}].indexes\`: two indexes must be given for each swap, found ${list.length}`);
-      const [a, b] = list.map((uid) => checkIndexUid(uid));
+      const a = checkIndexUid(list[0]);
+      const b = checkIndexUid(list[1]);
       const rename = swap.rename ?? false;
       if (typeof rename !== 'boolean') throw invalidType('invalid_swap_rename', `[${i}].rename`, 'a boolean', rename);
       for (const uid of [a, b]) {
         if (seen.has(uid)) throw badRequest('invalid_swap_duplicate_index_found', `Indexes must be declared only once during a swap. \`${uid}\` was specified several times.`);
         seen.add(uid);
       }
-      swaps.push({ indexes: [/** @type {string} */ (a), /** @type {string} */ (b)], rename });
+      swaps.push({ indexes: [a, b], rename });
     });
     return this.enqueue(
       { indexUid: null, type: 'indexSwap', details: { swaps } },
@@ -339,7 +341,7 @@ export class Engine {
       { indexUid: uid, type: 'documentDeletion', details: { providedIds: 0, deletedDocuments: null, originalFilter: JSON.stringify(filter) }, customMetadata },
       () => {
         const index = this.index(uid);
-        const mask = /** @type {Uint8Array} */ (indexFilter(index, filter, 'invalid_document_filter', { containsFilter: this.features.containsFilter }));
+        const mask = /** @type {Uint8Array} */ (indexFilter(index, filter, 'invalid_document_filter', { containsFilter: Boolean(this.features.containsFilter) }));
         const ids = index.records().filter((rec) => mask[rec.seq] === 1).map((rec) => rec.id);
         return { deletedDocuments: index.deleteDocuments(ids) };
       },
@@ -433,7 +435,7 @@ export class Engine {
    */
   fetchDocuments(uid, q) {
     const index = this.index(uid);
-    const mask = q.filter === null || q.filter === undefined ? null : indexFilter(index, q.filter, 'invalid_document_filter', { containsFilter: this.features.containsFilter });
+    const mask = q.filter === null || q.filter === undefined ? null : indexFilter(index, q.filter, 'invalid_document_filter', { containsFilter: Boolean(this.features.containsFilter) });
     let recs = q.ids
       ? q.ids
           .map((id) => index.docs.get(String(id)))
@@ -473,7 +475,12 @@ export class Engine {
 
   /** @param {Index} index */
   indexStats(index) {
-    const raw = index.records().reduce((sum, rec) => sum + Buffer.byteLength(JSON.stringify(rec.doc)), 0);
+    // The documents' size is measured once per version of the index.
+    const holder = /** @type {Index & { _rawSize?: { version: number, bytes: number } }} */ (index);
+    if (!holder._rawSize || holder._rawSize.version !== index.version) {
+      holder._rawSize = { version: index.version, bytes: index.records().reduce((sum, rec) => sum + Buffer.byteLength(JSON.stringify(rec.doc)), 0) };
+    }
+    const raw = holder._rawSize.bytes;
     return {
       numberOfDocuments: index.size,
       rawDocumentDbSize: raw,

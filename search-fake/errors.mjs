@@ -1,3 +1,4 @@
+// @ts-check
 // Meilisearch-shaped errors: every failure the fake reports, on the wire or inside a failed
 // task, is an object `{ message, code, type, link }` with the same `code` and `type` a real
 // Meilisearch server uses, and the same HTTP status. The official SDK turns a non-2xx answer

@@ -1,3 +1,4 @@
+// @ts-check
 // Document fields as Meilisearch sees them: nested objects flattened to dotted names
 // (`{a: {b: 1}}` gives `a.b`), arrays flattened into their field, facet values normalised
 // the way the engine compares them (trimmed, Unicode compatibility decomposition, lower

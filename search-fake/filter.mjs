@@ -1,3 +1,4 @@
+// @ts-check
 // Meilisearch filter expressions: a lazy tokenizer, a recursive-descent parser producing a
 // small syntax tree, and a compiler turning the tree into one closure evaluated per document.
 //
@@ -658,8 +659,9 @@ function build(node, ctx) {
       return false;
     };
   }
-  const get = ctx.valueGetter(node.field);
-  const test = valueTest(node);
+  const cond = /** @type {CondNode} */ (node);
+  const get = ctx.valueGetter(cond.field);
+  const test = valueTest(cond);
   return (doc) => test(get(doc));
 }
 

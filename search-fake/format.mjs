@@ -1,3 +1,4 @@
+// @ts-check
 // The `_formatted` and `_matchesPosition` parts of a hit. Matched words (the query's words,
 // their typo and synonym matches, and for a prefix match only the matched prefix) are wrapped
 // in the highlight tags; cropping keeps `cropLength` words around the best group of matches

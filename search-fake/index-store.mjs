@@ -1,3 +1,4 @@
+// @ts-check
 // One index in memory: its documents (by external id and by an internal sequence number that
 // gives the stable placeholder order), its settings, an inverted index for full-text search
 // (term → document → fields and term frequency) whose term dictionary is MiniSearch's radix
@@ -78,7 +79,13 @@ export class Index {
     /** Number of documents per top-level field (index stats). */
     /** @type {Map<string, number>} */
     this.fieldDistribution = new Map();
-    this.resetText();
+    /** @type {Map<string, Posting>} */
+    this.postings = new Map();
+    /** @type {SearchableMap<true>} term dictionary (prefix and typo lookups) */
+    this.dict = new SearchableMap();
+    /** @type {Map<string, number>} searchable flattened field → bit */
+    this.fieldBits = new Map();
+    this.searchAll = this.settings.searchableAttributes.includes('*');
     /** @type {Map<string, Array<FacetValue | undefined>>} */
     this.columns = new Map();
     /** Generation of each internal number: bumped when its document is replaced or removed. */

@@ -1,3 +1,4 @@
+// @ts-check
 // Search: parameter validation (unknown or mistyped parameters are rejected with the codes
 // Meilisearch uses), full-text matching with prefix and typo tolerance, bucket ranking in
 // the order of the index's ranking rules, filters, sorting, distinct, facets, pagination and
@@ -292,8 +293,8 @@ function filterMask(index, node) {
   const out = Uint8Array.from(/** @type {Uint8Array} */ (masks[0]));
   for (let m = 1; m < masks.length; m += 1) {
     const mask = /** @type {Uint8Array} */ (masks[m]);
-    if (node.type === 'and') for (let i = 0; i < N; i += 1) out[i] &= /** @type {number} */ (mask[i]);
-    else for (let i = 0; i < N; i += 1) out[i] |= /** @type {number} */ (mask[i]);
+    if (node.type === 'and') for (let i = 0; i < N; i += 1) out[i] = /** @type {number} */ (out[i]) & /** @type {number} */ (mask[i]);
+    else for (let i = 0; i < N; i += 1) out[i] = /** @type {number} */ (out[i]) | /** @type {number} */ (mask[i]);
   }
   return out;
 }
@@ -502,14 +503,14 @@ function textSearch(index, words, lastIsPrefix, strategy, mask) {
         const bits = (packed >>> TF_BITS) & keepBits;
         if (bits === 0) continue;
         if (matchedBits[seq] === 0) touched[touchedCount++] = seq;
-        matchedBits[seq] |= bit;
+        matchedBits[seq] = /** @type {number} */ (matchedBits[seq]) | bit;
         const slot = seq * n + i;
         if (typosHere < /** @type {number} */ (slotTypos[slot])) slotTypos[slot] = typosHere;
         const rank = searchAll ? 0 : 31 - Math.clz32(bits & -bits);
         if (rank < /** @type {number} */ (slotAttr[slot])) slotAttr[slot] = rank;
         if (exact) slotExact[slot] = 1;
         const tf = packed & 1023;
-        score[seq] += idf * weight * (tf / (tf + 1.2));
+        score[seq] = /** @type {number} */ (score[seq]) + idf * weight * (tf / (tf + 1.2));
       }
     }
   }

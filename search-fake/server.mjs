@@ -1,4 +1,5 @@
 #!/usr/bin/env node
+// @ts-check
 // The local stand-in for a Meilisearch server: the part of Meilisearch's HTTP API that the
 // official `meilisearch` SDK (0.62) calls, on loopback, so Sequent can talk to it through
 // the SDK exactly as it would to a real server. Indexes, documents, settings, asynchronous
@@ -267,8 +268,8 @@ function routes(engine, control) {
     r('POST', '/multi-search', 'json', ({ body }) => multiSearch(engine, body, features())),
 
     r('GET', '/tasks', 'none', ({ query }) => engine.queue.list(query)),
-    r('POST', '/tasks/cancel', 'optional', ({ query }) => engine.cancelTasks(query), 200),
-    r('DELETE', '/tasks', 'none', ({ query }) => engine.deleteTasks(query), 200),
+    r('POST', '/tasks/cancel', 'optional', ({ query }) => engine.cancelTasks(query), 202),
+    r('DELETE', '/tasks', 'none', ({ query }) => engine.deleteTasks(query), 202),
     r('GET', '/tasks/([^/]+)', 'none', ({ params }) => {
       const raw = /** @type {string} */ (params[0]);
       if (!/^\d+$/.test(raw)) throw badRequest('invalid_task_uids', `Invalid value in parameter \`taskUid\`: could not parse \`${raw}\` as a positive integer`);

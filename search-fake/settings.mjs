@@ -1,3 +1,4 @@
+// @ts-check
 // Index settings: Meilisearch's defaults, validation of an update (with Meilisearch's error
 // codes), PATCH semantics (a key set to null goes back to its default; nested objects such as
 // `typoTolerance` are merged), and the `/settings/<kebab-name>` sub-routes with the HTTP

@@ -1,3 +1,4 @@
+// @ts-check
 // The fake's folder on disk:
 //   <dir>/tasks.json            the task log and the next task uid
 //   <dir>/features.json         experimental features switched on

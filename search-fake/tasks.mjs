@@ -1,3 +1,4 @@
+// @ts-check
 // The task queue: every write is a task with an increasing uid, answered at once as
 // "enqueued" and processed in order in the background (one at a time, each on its own turn
 // of the event loop), going enqueued → processing → succeeded | failed | canceled. The log

@@ -1,3 +1,4 @@
+// @ts-check
 // Words as the full-text side of the fake sees them: maximal runs of letters, digits and
 // combining marks; compared in lower case with diacritics removed (so "Écoulement" matches
 // "ecoulement"), the way Meilisearch's tokenizer normalises Latin text. Also the typo
@@ -115,8 +116,11 @@ export function typoDistance(a, b, max) {
   if (Math.abs(a.length - b.length) > max) return max + 1;
   const n = a.length;
   const m = b.length;
+  /** @type {any} */
   let prev2 = new Array(m + 1).fill(0);
+  /** @type {any} */
   let prev = Array.from({ length: m + 1 }, (_, j) => j);
+  /** @type {any} */
   let cur = new Array(m + 1).fill(0);
   for (let i = 1; i <= n; i += 1) {
     cur[0] = i;
@@ -131,5 +135,5 @@ export function typoDistance(a, b, max) {
     if (rowMin > max) return max + 1;
     [prev2, prev, cur] = [prev, cur, prev2];
   }
-  return prev[m];
+  return /** @type {number} */ (prev[m]);
 }

@@ -262,7 +262,7 @@ describe('documents', () => {
         .waitTask(),
     );
     expect(succeeded(await index.deleteDocument(1).waitTask()).details).toMatchObject({ providedIds: 1, deletedDocuments: 1 });
-    expect(succeeded(await index.deleteDocuments([2, '3', 99]).waitTask()).details).toMatchObject({ providedIds: 3, deletedDocuments: 2 });
+    expect(succeeded(await index.deleteDocuments([2, '3', 99] as never).waitTask()).details).toMatchObject({ providedIds: 3, deletedDocuments: 2 });
     const byFilter = succeeded(await index.deleteDocuments({ filter: 'kind = odd' }).waitTask());
     expect(byFilter.details).toMatchObject({ deletedDocuments: 1, originalFilter: '"kind = odd"' });
     expect((await index.getDocuments()).results).toEqual([{ id: 4, kind: 'even' }, { id: 6, kind: 'even' }]);
@@ -382,6 +382,13 @@ describe('tasks', () => {
     expect(deletion).toMatchObject({ type: 'taskDeletion', details: { matchedTasks: 1, deletedTasks: 1 } });
     expect((await h.client.tasks.getTasks({ indexUids: ['tasks-delete'] })).total).toBe(0);
     expect(await apiError(h.client.tasks.deleteTasks({}))).toMatchObject({ status: 400, code: 'missing_task_filters' });
+  });
+
+  it('cancels only tasks still waiting', async () => {
+    const done = await h.client.index('tasks-cancel').addDocuments([{ id: 1 }]).waitTask();
+    const cancel = succeeded(await h.client.tasks.cancelTasks({ uids: [done.uid] }).waitTask());
+    expect(cancel).toMatchObject({ type: 'taskCancelation', indexUid: null, details: { matchedTasks: 1, canceledTasks: 0 } });
+    expect((await h.client.tasks.getTask(done.uid)).status).toBe('succeeded');
   });
 });
 
