@@ -35,12 +35,35 @@ const isAsciiWordChar = (c) => (c >= 97 && c <= 122) || (c >= 48 && c <= 57) || 
 
 /**
  * Where the words of `text` are, without allocating per word: `starts[i]`/`ends[i]` for
- * `i < count` (UTF-16 offsets; the arrays are reused by the next call). `lower` is the text
+ * `i < count` (UTF-16 offsets; read only: for short texts the arrays are reused by the next
+ * call, for long ones they are cached). `lower` is the text
  * in lower case when it is plain ASCII (then a word's normalised form is a slice of it).
  * @param {string} text
  * @returns {{ count: number, starts: Int32Array, ends: Int32Array, lower: string | null }}
  */
 export function wordSpans(text) {
+  if (text.length < CACHED_TEXT_LENGTH) return scanWordSpans(text);
+  // Long texts (bodies) are highlighted and cropped again and again as searches repeat:
+  // keep their spans, as a search engine keeps word positions in its index. A Map keyed by
+  // the string: V8 hashes a string once, and a stored document's text is the same string.
+  const cached = spanCache.get(text);
+  if (cached) return cached;
+  const found = scanWordSpans(text);
+  const kept = { count: found.count, starts: found.starts.slice(0, found.count), ends: found.ends.slice(0, found.count), lower: found.lower };
+  if (spanCache.size >= SPAN_CACHE_ENTRIES) spanCache.delete(/** @type {string} */ (spanCache.keys().next().value));
+  spanCache.set(text, kept);
+  return kept;
+}
+
+/** Texts at least this long have their spans cached. */
+const CACHED_TEXT_LENGTH = 512;
+/** At most this many texts' spans are kept (the oldest go first): a few MB. */
+const SPAN_CACHE_ENTRIES = 2048;
+/** @type {Map<string, { count: number, starts: Int32Array, ends: Int32Array, lower: string | null }>} */
+const spanCache = new Map();
+
+/** @param {string} text */
+function scanWordSpans(text) {
   let { starts, ends } = spanScratch;
   let count = 0;
   /** @param {number} start @param {number} end */

@@ -114,7 +114,7 @@ export interface SearchRequest {
 
 /**
  * The multi-search of `query`: first the hits (with counts of the facet groups that have
- * no selection, and Fr₁/discharge stats), then one count-only query per selected group.
+ * no selection), then one count-only query per selected group.
  * Without words and with "best match", the newest come first.
  */
 export function searchRequests(indexUid: string, firmId: string, query: PrecedentQuery): { requests: SearchRequest[]; groups: FacetParam[] } {
@@ -125,7 +125,8 @@ export function searchRequests(indexUid: string, firmId: string, query: Preceden
     indexUid,
     q,
     filter: searchFilter(firmId, query),
-    facets: [...FACET_PARAMS.filter((f) => query.facets[f].length === 0).map((f) => FACETS[f]), 'fr1Min', 'fr1Max', 'dischargeMin', 'dischargeMax'],
+    // Only the string facets: asking for numeric ones would count every distinct value.
+    facets: FACET_PARAMS.filter((f) => query.facets[f].length === 0).map((f) => FACETS[f]),
     ...(sort ? { sort } : {}),
     limit: RESULTS_PER_PAGE,
     offset: (query.page - 1) * RESULTS_PER_PAGE,

@@ -64,8 +64,6 @@ export interface PrecedentResults {
   pages: number;
   perPage: number;
   facets: Record<FacetParam, FacetCount[]>;
-  /** Smallest and largest Fr₁ and discharge among the results, for the range controls. */
-  stats: { fr1: { min: number; max: number } | null; discharge: { min: number; max: number } | null };
   /** Changes waiting to reach the index (publications a few seconds old, or search was down). */
   pending: number;
   tookMs: number;
@@ -103,7 +101,6 @@ export interface RawSearchResult {
   estimatedTotalHits?: number;
   totalHits?: number;
   facetDistribution?: Record<string, Record<string, number>>;
-  facetStats?: Record<string, { min: number; max: number }>;
   processingTimeMs?: number;
 }
 
@@ -156,16 +153,9 @@ function counts(facet: FacetParam, distribution: Record<string, number> | undefi
     .sort((a, b) => b.count - a.count || a.value.localeCompare(b.value));
 }
 
-function range(stats: RawSearchResult['facetStats'], low: string, high: string) {
-  const a = stats?.[low];
-  const b = stats?.[high];
-  if (!a || !b) return null;
-  return { min: Math.min(a.min, b.min), max: Math.max(a.max, b.max) };
-}
-
 /**
  * The API's answer from a multi-search made by `searchRequests`: the first result gives
- * the hits, the facets without a selection and the stats; each further one the counts of
+ * the hits and the facets without a selection; each further one the counts of
  * the group at the same position in `groups`. Selected values with no result keep a 0.
  */
 export function toResults(
@@ -192,6 +182,5 @@ export function toResults(
     pages: Math.max(1, Math.ceil(total / RESULTS_PER_PAGE)),
     perPage: RESULTS_PER_PAGE,
     facets,
-    stats: { fr1: range(main?.facetStats, 'fr1Min', 'fr1Max'), discharge: range(main?.facetStats, 'dischargeMin', 'dischargeMax') },
   };
 }

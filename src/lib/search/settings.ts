@@ -3,7 +3,10 @@
  * filtered and sorted on. Applied whenever a worker first talks to the service, and to the
  * fresh index a reindex builds, so changing a list here takes effect on the next start.
  */
-export const INDEX_SETTINGS: { searchableAttributes: string[]; filterableAttributes: string[]; sortableAttributes: string[] } = {
+export const INDEX_SETTINGS: { rankingRules: string[]; searchableAttributes: string[]; filterableAttributes: string[]; sortableAttributes: string[] } = {
+  // `sort` first: an order the user picks (newest, Fr₁) is strict; relevance ranks within it.
+  // Without a sort parameter the rule does nothing and relevance decides alone.
+  rankingRules: ['sort', 'words', 'typo', 'proximity', 'attribute', 'exactness'],
   searchableAttributes: [
     'title',
     'summary',

@@ -44,7 +44,7 @@ describe('toHit / toResults', () => {
     const selected = { ...emptyQuery().facets, structure: ['outfall'] };
     const out = toResults(
       [
-        { hits: [raw], estimatedTotalHits: 1, facetDistribution: { tags: { culvert: 1, apron: 0 } }, facetStats: { fr1Min: { min: 5.2, max: 5.2 }, fr1Max: { min: 5.4, max: 5.4 } } },
+        { hits: [raw], estimatedTotalHits: 1, facetDistribution: { tags: { culvert: 1, apron: 0 } } },
         { hits: [], facetDistribution: { structureType: { 'culvert-outlet': 3 } } },
       ],
       ['structure'],
@@ -57,8 +57,6 @@ describe('toHit / toResults', () => {
       { value: 'outfall', label: 'Outfall', count: 0 },
     ]);
     expect(out.facets.tag).toEqual([{ value: 'culvert', label: 'culvert', count: 1 }]);
-    expect(out.stats.fr1).toEqual({ min: 5.2, max: 5.4 });
-    expect(out.stats.discharge).toBeNull();
     expect(out).toMatchObject({ total: 1, page: 1, pages: 1, perPage: 20 });
   });
 });
