@@ -26,7 +26,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-const editorText = () => page.locator('[data-testid=case-editor] textarea').first();
+const editorText = () => page.locator('[data-testid=case-editor] textarea.w-md-editor-text-input');
 
 describe('writing a case', () => {
   it('creates a case from the skeleton and opens the editor', async () => {

@@ -117,7 +117,7 @@ describe('saving from two tabs', () => {
     const second = await context.newPage();
     await first.goto(`${appUrl()}/cases/${created}/edit`);
     await second.goto(`${appUrl()}/cases/${created}/edit`);
-    const text = (p: Page) => p.locator('[data-testid=case-editor] textarea').first();
+    const text = (p: Page) => p.locator('[data-testid=case-editor] textarea.w-md-editor-text-input');
     await text(first).fill('Saved from the first tab.');
     await first.waitForSelector('[data-testid=save-status][data-state=saved]:has-text("revision 2")', { timeout: 15_000 });
     await text(second).fill('Typed in the second tab.');

@@ -96,7 +96,7 @@ describe('the review loop', () => {
 
   it('lets the engineer fix the case, resolve the comments and resubmit', async () => {
     await engineer.goto(`${caseUrl}/edit`);
-    const editor = engineer.locator('[data-testid=case-editor] textarea').first();
+    const editor = engineer.locator('[data-testid=case-editor] textarea.w-md-editor-text-input');
     await engineer.waitForSelector('[data-testid=case-preview] table');
     await editor.fill(BODY.replace('Plain basin', 'Toe depth y1 from the 2026 Wrenmoor gauging survey. Plain basin'));
     await engineer.waitForSelector('[data-testid=save-status][data-state=saved]', { timeout: 15_000 });

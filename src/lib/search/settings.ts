@@ -5,8 +5,9 @@
  */
 export const INDEX_SETTINGS: { rankingRules: string[]; searchableAttributes: string[]; filterableAttributes: string[]; sortableAttributes: string[] } = {
   // `sort` first: an order the user picks (newest, Fr₁) is strict; relevance ranks within it.
-  // Without a sort parameter the rule does nothing and relevance decides alone.
-  rankingRules: ['sort', 'words', 'typo', 'proximity', 'attribute', 'exactness'],
+  // Without a sort parameter the rule does nothing and relevance decides alone. Equally
+  // relevant cases come newest first (and in the same order after a reindex).
+  rankingRules: ['sort', 'words', 'typo', 'proximity', 'attribute', 'exactness', 'publishedAt:desc'],
   searchableAttributes: [
     'title',
     'summary',
