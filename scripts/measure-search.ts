@@ -200,15 +200,12 @@ try {
   if (!Array.isArray(sample.hits)) throw new Error(`unexpected answer: ${JSON.stringify(sample).slice(0, 300)}`);
   for (let i = 0; i < 300; i += 1) await (await fetch(`${base}${paths[i % paths.length]}`, { headers: { cookie } })).text();
 
-  /** Sends REQUESTS requests over `paths` in turn, CONCURRENCY at a time; percentiles in ms. */
-  async function load(paths: string[]) {
+  /** Sends REQUESTS requests in turn, CONCURRENCY at a time; percentiles in ms. */
+  async function load(requests: autocannon.Request[], url = base, headers: Record<string, string> = { cookie }) {
     const times: number[] = [];
     const statuses = new Map<number, number>();
     const summary = await new Promise<autocannon.Result>((resolve, reject) => {
-      const run = autocannon(
-        { url: base, headers: { cookie }, connections: CONCURRENCY, amount: REQUESTS, requests: paths.map((p) => ({ method: 'GET' as const, path: p })) },
-        (error, result) => (error ? reject(error) : resolve(result)),
-      );
+      const run = autocannon({ url, headers, connections: CONCURRENCY, amount: REQUESTS, requests }, (error, result) => (error ? reject(error) : resolve(result)));
       run.on('response', (_client, status, _bytes, responseTime) => {
         times.push(responseTime);
         statuses.set(status, (statuses.get(status) ?? 0) + 1);
@@ -220,10 +217,18 @@ try {
     return `${REQUESTS} requests, ${CONCURRENCY} concurrent: p50 ${pct(50)} ms, p95 ${pct(95)} ms, p99 ${pct(99)} ms; ${Math.round(summary.requests.average)} requests/s`;
   }
   console.log(`GET /api/v1/search, text + Fr1 range + facet, ${sample.total.toLocaleString('en-GB')} hits for "${words[0]}" (goal p95 ≤ 20 ms)`);
-  console.log(`  ${await load(paths)}`);
+  console.log(`  ${await load(paths.map((p) => ({ method: 'GET', path: p })))}`);
+  // The search service's share: the same multi-searches straight to the fake.
+  const { PrecedentQuerySchema, queryFromParams, searchRequests } = await import('../src/lib/search');
+  const bodies = paths.map((p) => {
+    const query = PrecedentQuerySchema.parse(queryFromParams(new URL(p, base).searchParams));
+    return JSON.stringify({ queries: searchRequests(service.indexUid, firms[0]!.firm.id, query).requests });
+  });
+  console.log('The same multi-searches sent straight to the search fake');
+  console.log(`  ${await load(bodies.map((body) => ({ method: 'POST', path: '/multi-search', body })), process.env.SEQUENT_SEARCH_URL!, { authorization: `Bearer ${searchKey}`, 'content-type': 'application/json' })}`);
   // The floor under the same load: session, firm and a JSON answer, no search.
   console.log('For reference, GET /api/v1/me (session and firm only)');
-  console.log(`  ${await load(['/api/v1/me'])}`);
+  console.log(`  ${await load([{ method: 'GET', path: '/api/v1/me' }])}`);
 } catch (error) {
   console.error(`measure:search failed: ${error instanceof Error ? (error.stack ?? error.message) : error}`);
   process.exitCode = 1;
