@@ -116,6 +116,7 @@ describe('the search page', () => {
   it('says so when nothing matches, and offers to clear the search', async () => {
     await engineer.goto(`${appUrl()}/search?q=zzyzx-nothing&frMin=2`);
     await engineer.locator('[data-testid=search-empty]').waitFor();
+    await engineer.screenshot({ path: screenshotPath('search-empty') });
     await engineer.getByRole('button', { name: 'Clear the search' }).first().click();
     await expect.poll(() => engineer.locator('[data-testid=search-hit]').count()).toBeGreaterThan(1);
     expect(engineer.url()).toBe(`${appUrl()}/search`);
@@ -127,8 +128,11 @@ describe('the search page', () => {
     await engineer.waitForURL(/\/cases\/new\?from=/);
     expect(await engineer.textContent('[data-testid=copy-source]')).toContain('Kilnbarrow');
     expect(await engineer.isChecked('input[name=start][value=copy]')).toBe(true);
+    await engineer.screenshot({ path: screenshotPath('new-case-from-result'), fullPage: true });
     await engineer.fill('#title', 'Kilnbarrow-style outlet for the Wenlow crossing');
     await Promise.all([engineer.waitForURL(/\/cases\/[^/]+\/edit$/), engineer.getByRole('button', { name: 'Create and open the editor' }).click()]);
+    await engineer.locator('#case-summary').waitFor();
+    await engineer.screenshot({ path: screenshotPath('editor-with-summary') });
     expect(errors).toEqual([]);
   });
 });
