@@ -34,6 +34,9 @@ describe('firm isolation of cases', () => {
     ['its revisions', (id) => ({ path: `/api/v1/cases/${id}/revisions` })],
     ['one revision', (id) => ({ path: `/api/v1/cases/${id}/revisions/1` })],
     ['a diff', (id) => ({ path: `/api/v1/cases/${id}/diff?from=1&to=2` })],
+    ['its calculation sheet as PDF', (id) => ({ path: `/api/v1/cases/${id}/sheet.pdf?rev=1` })],
+    ['its CSV export', (id) => ({ path: `/api/v1/cases/${id}/export.csv` })],
+    ['its JSON export', (id) => ({ path: `/api/v1/cases/${id}/export.json?rev=2` })],
   ];
 
   it.each(routes)('answers 404 for firm B’s case: %s, the same as for a case that never existed', async (_label, request) => {

@@ -8,6 +8,7 @@ import { evaluateCase } from '../../src/lib/calc/evaluateCase';
 import { DESIGN_AID_CAUTION } from '../../src/lib/caution';
 import { createCase, type CaseMetadata } from '../../src/lib/cases';
 import { actOnCase } from '../../src/lib/review';
+import { closePdfBrowser, renderPdf } from '../../src/lib/pdf';
 import { SOLVER_VERSION } from '../../src/lib/solver';
 import { call, sessionOf } from '../helpers/app';
 import { makeFirm, TEST_PASSWORD, type TestFirm } from '../helpers/firms';
@@ -154,5 +155,18 @@ describe('calculation sheet and exports', () => {
     expect(data.evaluation).toEqual(JSON.parse(JSON.stringify(evaluateCase(BODY))));
     expect(data.methods.map((m: { slug: string }) => m.slug)).toEqual(['hydraulic-jump', expect.any(String)]);
     expect(data.methods[0].sources.length).toBeGreaterThan(0);
+  });
+
+  it('says Chromium is unavailable, rather than throwing, when it cannot be started', async () => {
+    const before = process.env.CHROMIUM_PATH;
+    process.env.CHROMIUM_PATH = '/nonexistent/chromium';
+    try {
+      await closePdfBrowser();
+      const result = await renderPdf({ url: 'http://127.0.0.1:9/', cookie: '', format: 'A4', footerText: 'x' });
+      expect(result).toMatchObject({ ok: false, reason: 'unavailable' });
+    } finally {
+      if (before === undefined) delete process.env.CHROMIUM_PATH;
+      else process.env.CHROMIUM_PATH = before;
+    }
   });
 });
