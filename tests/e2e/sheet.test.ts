@@ -51,4 +51,25 @@ describe('the calculation sheet', () => {
     expect(await page.getAttribute('html', 'data-paper')).toBe('letter');
     await page.screenshot({ path: screenshotPath('calculation-sheet-letter'), fullPage: false });
   });
+
+  it('marks a draft as DRAFT, not approved, across the page', async () => {
+    const body = 'A draft check.\n\n```jump basin\nb = 12 m\nQ = 85 m3/s\ny1 = 0.53 m\n```\n';
+    const created = await page.evaluate(async (text) => {
+      const r = await fetch('/api/v1/cases', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ title: 'Draft sheet check', structureType: 'other', sectionShape: 'rectangular', projectReference: 'KWC-0001', body: text }),
+      });
+      return { status: r.status, json: await r.json() };
+    }, body);
+    expect(created.status).toBe(201);
+    await page.goto(`${appUrl()}/cases/${created.json.case.id}/sheet`);
+    await page.waitForSelector('[data-testid=title-block]');
+    expect((await page.textContent('[data-testid=sheet-status]'))?.trim()).toBe('DRAFT');
+    expect(await page.textContent('[data-testid=approved-by]')).toBe('not approved');
+    expect(await page.locator('.sheet-watermark').isVisible()).toBe(true);
+    await page.emulateMedia({ media: 'print' });
+    await page.screenshot({ path: screenshotPath('calculation-sheet-draft-print'), fullPage: false });
+    await page.emulateMedia({ media: 'screen' });
+  });
 });
