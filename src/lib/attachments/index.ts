@@ -20,6 +20,7 @@ export { ATTACHMENT_FAILURES, type AttachmentFailure } from './messages';
 export { CaptionSchema, ListAttachmentsQuery, UpdateAttachmentSchema } from './validation';
 export {
   addAttachments,
+  attachmentsOfRevision,
   canChangeAttachments,
   captionAttachment,
   findAttachmentFile,

@@ -112,13 +112,21 @@ export async function listAttachments(
     .where(and(eq(caseFile.id, caseId), eq(caseFile.firmId, firmId)));
   if (!found) return null;
   const n = revision ?? workingRevision(found);
+  return { revision: n, attachments: await attachmentsOfRevision(database, firmId, caseId, n) };
+}
+
+/**
+ * The files revision `revision` of a case of the firm shows, oldest first, in one query
+ * (for pages that already know the case is the firm's; another firm's case has none).
+ */
+export async function attachmentsOfRevision(database: Queryable, firmId: string, caseId: string, revision: number): Promise<AttachmentView[]> {
   const rows = await database
     .select(columns)
     .from(attachment)
     .innerJoin(user, eq(user.id, attachment.uploaderId))
-    .where(and(eq(attachment.firmId, firmId), eq(attachment.caseId, caseId), visibleIn(n)))
+    .where(and(eq(attachment.firmId, firmId), eq(attachment.caseId, caseId), visibleIn(revision)))
     .orderBy(asc(attachment.createdAt), asc(attachment.id));
-  return { revision: n, attachments: rows.map(toView) };
+  return rows.map(toView);
 }
 
 /** The stored keys and type of one attachment of the firm (for downloads), or null. */
