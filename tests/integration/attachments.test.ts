@@ -120,6 +120,33 @@ describe('POST /api/v1/cases/:id/attachments', () => {
     expect((await response.json()).error.message).toMatch(/larger than 51 MB.*one at a time/);
   });
 
+  it('stops reading a body without a length once it passes the request limit', async () => {
+    const id = await newCase();
+    const boundary = 'sequent-test-boundary';
+    let sent = 0;
+    const chunk = new Uint8Array(1024 * 1024).fill(0x61);
+    const body = new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(new TextEncoder().encode(`--${boundary}\r\ncontent-disposition: form-data; name="file"; filename="endless.csv"\r\ncontent-type: text/csv\r\n\r\n`));
+      },
+      pull(controller) {
+        // Far past the limit; the server should answer long before the end.
+        if (sent >= 200) return controller.close();
+        sent++;
+        controller.enqueue(chunk);
+      },
+    });
+    const response = await fetch(new URL(`/api/v1/cases/${id}/attachments`, appUrl()), {
+      method: 'POST',
+      headers: { cookie: author, origin: appUrl(), 'content-type': `multipart/form-data; boundary=${boundary}` },
+      body,
+      duplex: 'half',
+    } as RequestInit);
+    expect(response.status).toBe(413);
+    expect((await response.json()).error.message).toMatch(/larger than 51 MB/);
+    expect(sent).toBeLessThan(200);
+  });
+
   it('decides the type from the content, not the name or the browser', async () => {
     const id = await newCase();
     const cases: Array<[string, Buffer, RegExp]> = [
