@@ -33,6 +33,10 @@ const ConfigSchema = z.object({
   SEQUENT_SEARCH_KEY: z.string().min(1).optional(),
   /** The index holding published cases (every firm's, each search filtered to one firm). */
   SEQUENT_SEARCH_INDEX: z.string().regex(/^[A-Za-z0-9_-]{1,100}$/, 'must be letters, digits, - or _').default('sequent-cases'),
+  /** Where attached files are kept (a local folder); default `<SEQUENT_DATA_DIR or .data>/files`. */
+  SEQUENT_FILES_DIR: z.string().min(1).optional(),
+  /** The project's local state folder (database cluster, files); default `.data`. */
+  SEQUENT_DATA_DIR: z.string().min(1).optional(),
   NODE_ENV: z.string().default('development'),
 });
 

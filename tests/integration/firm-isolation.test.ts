@@ -10,6 +10,8 @@ let a: TestFirm;
 let b: TestFirm;
 let adminOfA: string;
 let invitationOfB: string;
+let caseOfB: string;
+let attachmentOfB: string;
 
 beforeAll(async () => {
   a = await makeFirm({ admin: 'admin', eng: 'engineer' });
@@ -18,6 +20,14 @@ beforeAll(async () => {
   const invited = await inviteMember(db(), { firmId: b.firm.id, inviterUserId: b.people.admin!.userId, email: 'newcomer@firm-b.example', role: 'engineer', baseUrl: appUrl() });
   if (!invited.ok) throw new Error('could not invite into firm B');
   invitationOfB = invited.invitation.invitationId;
+  // A case of firm B with a file, to probe the attachment routes from firm A.
+  const engOfB = await sessionOf(b.people.eng!.email, TEST_PASSWORD);
+  const created = await call('/api/v1/cases', { cookie: engOfB, json: { title: 'Firm B culvert', structureType: 'culvert-outlet', sectionShape: 'rectangular' } });
+  caseOfB = (await created.json()).case.id;
+  const form = new FormData();
+  form.append('file', new Blob(['a,b\n1,2\n']), 'levels.csv');
+  const uploaded = await fetch(new URL(`/api/v1/cases/${caseOfB}/attachments`, appUrl()), { method: 'POST', headers: { cookie: engOfB, origin: appUrl() }, body: form });
+  attachmentOfB = (await uploaded.json()).attachments[0].id;
 });
 
 describe('firm isolation', () => {
@@ -26,6 +36,10 @@ describe('firm isolation', () => {
     ['a member record', () => ({ path: `/api/v1/members/${b.people.eng!.memberId}` })],
     ['a role change of a member', () => ({ path: `/api/v1/members/${b.people.eng!.memberId}`, method: 'PATCH', json: { role: 'admin' } })],
     ['the revocation of an invitation', () => ({ path: `/api/v1/invitations/${invitationOfB}`, method: 'DELETE', json: {} })],
+    ['the files of a case', () => ({ path: `/api/v1/cases/${caseOfB}/attachments` })],
+    ['a file download', () => ({ path: `/api/v1/attachments/${attachmentOfB}` })],
+    ['a caption change of a file', () => ({ path: `/api/v1/cases/${caseOfB}/attachments/${attachmentOfB}`, method: 'PATCH', json: { caption: 'x' } })],
+    ['the removal of a file', () => ({ path: `/api/v1/cases/${caseOfB}/attachments/${attachmentOfB}`, method: 'DELETE', json: {} })],
   ];
 
   it.each(resources)('answers 404 for firm B %s', async (_label, request) => {

@@ -21,6 +21,8 @@ declare module 'vitest' {
     /** The search fake the test app indexes into (search-fake/server.mjs, test-only control routes on). */
     searchUrl: string;
     searchKey: string;
+    /** The folder of the test app's file store (SEQUENT_FILES_DIR), for tests that look inside it. */
+    filesDir: string;
   }
 }
 
@@ -55,7 +57,9 @@ export default async function setup(project: TestProject) {
   const mail = await startMailFake({ dir: mailDir, control: true });
   const searchDir = await mkdtemp(path.join(tmpdir(), 'sequent-test-search-'));
   const search = await startSearchFake({ dir: searchDir, apiKey: randomBytes(12).toString('hex'), control: true });
+  const filesDir = await mkdtemp(path.join(tmpdir(), 'sequent-test-files-'));
   const stopMail = async () => {
+    rmSync(filesDir, { recursive: true, force: true });
     await mail.stop();
     await search.stop();
     rmSync(mailDir, { recursive: true, force: true });
@@ -66,6 +70,7 @@ export default async function setup(project: TestProject) {
       databaseUrl,
       'off',
       (env) => {
+        env.SEQUENT_FILES_DIR = filesDir;
         const seed = spawnSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: projectRoot, env, encoding: 'utf8', timeout: 180_000 });
         if (seed.status !== 0) throw new Error(`seeding the test database failed (status ${seed.status}, signal ${seed.signal}${seed.error ? `, ${seed.error.message}` : ""}):\n${seed.stdout}\n${seed.stderr}`);
       },
@@ -76,6 +81,7 @@ export default async function setup(project: TestProject) {
     project.provide('mailboxUrl', mail.apiUrl);
     project.provide('searchUrl', search.url);
     project.provide('searchKey', search.apiKey);
+    project.provide('filesDir', filesDir);
     return async () => {
       await app.stop();
       await stopMail();

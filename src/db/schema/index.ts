@@ -4,3 +4,4 @@ export * from './cases';
 export * from './review';
 export * from './mail';
 export * from './search';
+export * from './attachments';

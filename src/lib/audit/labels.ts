@@ -22,6 +22,9 @@ export const AUDIT_ACTION_LABELS: Record<AuditAction, string> = {
   'case.published': 'Published',
   'case.superseded': 'Earlier publication superseded',
   'case.withdrawn': 'Withdrawn',
+  'case.attachment_added': 'File attached',
+  'case.attachment_captioned': 'File caption changed',
+  'case.attachment_removed': 'File removed',
 };
 
 /** `case.approved` → "Approved"; an unknown `invitation.sent` → "Invitation sent". */

@@ -18,7 +18,10 @@ export type AuditAction =
   | 'case.approvals_cancelled'
   | 'case.published'
   | 'case.superseded'
-  | 'case.withdrawn';
+  | 'case.withdrawn'
+  | 'case.attachment_added'
+  | 'case.attachment_captioned'
+  | 'case.attachment_removed';
 
 /** One event to append. */
 export interface AuditEntry {
