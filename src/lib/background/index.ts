@@ -1,0 +1,1 @@
+export { backgroundWorker, reasonOf, type BackgroundWorker, type WorkerSpec } from './worker';
