@@ -2,9 +2,8 @@
 import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/db/seed';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -19,10 +18,7 @@ beforeAll(async () => {
     if (m.type() === 'error' && !/status of 415/.test(m.text())) consoleErrors.push(`${page.url()}: ${m.text()}`);
   });
   page.on('pageerror', (e) => consoleErrors.push(`${page.url()}: ${e.message}`));
-  await page.goto(`${appUrl()}/signin`);
-  await page.fill('#email', 'ada.quillon@brightwater.example');
-  await page.fill('#password', DEMO_PASSWORD);
-  await Promise.all([page.waitForURL(`${appUrl()}/`), page.keyboard.press('Enter')]);
+  await signInAs(page, 'ada.quillon@brightwater.example');
 });
 
 afterAll(async () => {

@@ -1,8 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/db/seed';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -16,10 +15,7 @@ beforeAll(async () => {
     if (m.type() === 'error') consoleErrors.push(`${page.url()}: ${m.text()}`);
   });
   page.on('pageerror', (e) => consoleErrors.push(`${page.url()}: ${e.message}`));
-  await page.goto(`${appUrl()}/signin`);
-  await page.fill('#email', 'priya.odunya@kestrelweir.example');
-  await page.fill('#password', DEMO_PASSWORD);
-  await Promise.all([page.waitForURL(`${appUrl()}/`), page.keyboard.press('Enter')]);
+  await signInAs(page, 'priya.odunya@kestrelweir.example');
 });
 
 afterAll(async () => {

@@ -1,8 +1,7 @@
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/db/seed';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
 
 // Vectors adapted from the OWASP XSS Filter Evasion Cheat Sheet; each would set
 // window.__xss or open a dialog if anything ran. The unit tests hold the full list.
@@ -31,13 +30,6 @@ let page: Page;
 const consoleErrors: string[] = [];
 const dialogs: string[] = [];
 
-async function signIn(p: Page, email: string) {
-  await p.goto(`${appUrl()}/signin`);
-  await p.fill('#email', email);
-  await p.fill('#password', DEMO_PASSWORD);
-  await Promise.all([p.waitForURL(`${appUrl()}/`), p.keyboard.press('Enter')]);
-}
-
 beforeAll(async () => {
   browser = await launchBrowser();
   context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
@@ -50,7 +42,7 @@ beforeAll(async () => {
     dialogs.push(d.message());
     await d.dismiss();
   });
-  await signIn(page, 'tomas.ilvar@kestrelweir.example');
+  await signInAs(page, 'tomas.ilvar@kestrelweir.example');
 });
 
 afterAll(async () => {

@@ -3,11 +3,10 @@
  * a reviewer comments on a block and returns it, the engineer fixes it and resubmits, the
  * reviewer approves, and the case reads as published with "checked by".
  */
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/db/seed';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
 
 const BODY = `## Purpose
 
@@ -21,21 +20,10 @@ y1 = 0.62 m
 `;
 
 let browser: Browser;
-const contexts: BrowserContext[] = [];
 const errors: string[] = [];
 let caseUrl = '';
 
-async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-  contexts.push(context);
-  const page = await context.newPage();
-  page.on('pageerror', (e) => errors.push(`${page.url()}: ${e.message}`));
-  await page.goto(`${appUrl()}/signin`);
-  await page.fill('#email', email);
-  await page.fill('#password', DEMO_PASSWORD);
-  await Promise.all([page.waitForURL(`${appUrl()}/`), page.keyboard.press('Enter')]);
-  return page;
-}
+const signedIn = (email: string) => signedInPage(browser, email, errors);
 
 let engineer: Page;
 let reviewer: Page;
@@ -53,7 +41,6 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  for (const context of contexts) await context.close();
   await browser?.close();
 });
 

@@ -4,11 +4,10 @@
  * lives in the address, the range handles work from the keyboard, and a result starts a
  * new case.
  */
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/db/seed';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
 
 // b = 3 m, y1 = 0.30 m, Fr1 = 9: q = Fr1·√(g·y1³) = 4.63 m²/s, Q = 13.9 m³/s.
 const BODY = `## Purpose
@@ -23,20 +22,9 @@ y1 = 0.30 m
 `;
 
 let browser: Browser;
-const contexts: BrowserContext[] = [];
 const errors: string[] = [];
 
-async function signedIn(email: string): Promise<Page> {
-  const context = await browser.newContext({ viewport: { width: 1400, height: 1000 } });
-  contexts.push(context);
-  const page = await context.newPage();
-  page.on('pageerror', (e) => errors.push(`${page.url()}: ${e.message}`));
-  await page.goto(`${appUrl()}/signin`);
-  await page.fill('#email', email);
-  await page.fill('#password', DEMO_PASSWORD);
-  await Promise.all([page.waitForURL(`${appUrl()}/`), page.keyboard.press('Enter')]);
-  return page;
-}
+const signedIn = (email: string) => signedInPage(browser, email, errors);
 
 let engineer: Page;
 let otherCulvert = '';
@@ -66,7 +54,6 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  for (const context of contexts) await context.close();
   await browser?.close();
 });
 

@@ -1,8 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../src/db/seed';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -15,10 +14,7 @@ beforeAll(async () => {
   page.on('console', (m) => {
     if (m.type() === 'error') consoleErrors.push(m.text());
   });
-  await page.goto(`${appUrl()}/signin`);
-  await page.fill('#email', 'tomas.ilvar@kestrelweir.example');
-  await page.fill('#password', DEMO_PASSWORD);
-  await Promise.all([page.waitForURL(`${appUrl()}/`), page.keyboard.press('Enter')]);
+  await signInAs(page, 'tomas.ilvar@kestrelweir.example');
 });
 
 afterAll(async () => {

@@ -1,7 +1,9 @@
 /** Debian's headless Chromium through playwright-core (never a downloaded browser). */
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { DEMO_PASSWORD } from '../../src/db/seed';
+import { appUrl } from './app';
 
 /** Where screenshots and other browser artefacts are written. */
 export const testOutputDir = path.resolve('test-results', 'e2e');
@@ -25,3 +27,22 @@ export async function launchBrowser(): Promise<Browser> {
 
 /** A path for a named screenshot under the test output folder. */
 export const screenshotPath = (name: string) => path.join(testOutputDir, `${name}.png`);
+
+/** Signs `page` in through the real sign-in form and waits for the casebook home. */
+export async function signInAs(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.goto(`${appUrl()}/signin`);
+  await page.fill('#email', email);
+  await page.fill('#password', password);
+  await Promise.all([page.waitForURL(`${appUrl()}/`), page.keyboard.press('Enter')]);
+}
+
+/**
+ * A new browser context (1400 × 1000) signed in as `email`, as a colleague at another desk;
+ * uncaught page errors are appended to `errors`. Closing the browser closes it.
+ */
+export async function signedInPage(browser: Browser, email: string, errors: string[]): Promise<Page> {
+  const page = await (await browser.newContext({ viewport: { width: 1400, height: 1000 } })).newPage();
+  page.on('pageerror', (e) => errors.push(`${page.url()}: ${e.message}`));
+  await signInAs(page, email);
+  return page;
+}
