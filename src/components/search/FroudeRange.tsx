@@ -5,6 +5,7 @@
  */
 import * as Slider from '@radix-ui/react-slider';
 import { useEffect, useState } from 'react';
+import { BoundInput } from './BoundInput';
 
 export const FROUDE_SCALE = { min: 1, max: 12, step: 0.1 } as const;
 
@@ -15,28 +16,15 @@ interface Props {
 }
 
 const clamp = (v: number) => Math.min(FROUDE_SCALE.max, Math.max(FROUDE_SCALE.min, v));
-const asText = (v: number | null) => (v === null ? '' : String(v));
 
 export function FroudeRange({ low, high, onChange }: Props) {
   // What the handles show while dragging; the search runs when a drag ends.
   const [handles, setHandles] = useState<[number, number]>([clamp(low ?? FROUDE_SCALE.min), clamp(high ?? FROUDE_SCALE.max)]);
-  const [lowText, setLowText] = useState(asText(low));
-  const [highText, setHighText] = useState(asText(high));
-  useEffect(() => {
-    setHandles([clamp(low ?? FROUDE_SCALE.min), clamp(high ?? FROUDE_SCALE.max)]);
-    setLowText(asText(low));
-    setHighText(asText(high));
-  }, [low, high]);
+  useEffect(() => setHandles([clamp(low ?? FROUDE_SCALE.min), clamp(high ?? FROUDE_SCALE.max)]), [low, high]);
 
   const fromHandles = ([a, b]: number[]) => {
     const round = (v: number) => Math.round(v * 10) / 10;
     onChange(a! <= FROUDE_SCALE.min ? null : round(a!), b! >= FROUDE_SCALE.max ? null : round(b!));
-  };
-  const fromBox = (which: 'low' | 'high', text: string) => {
-    const value = text.trim() === '' ? null : Number(text);
-    if (value !== null && !Number.isFinite(value)) return;
-    if (which === 'low') onChange(value, high);
-    else onChange(low, value);
   };
 
   return (
@@ -62,31 +50,9 @@ export function FroudeRange({ low, high, onChange }: Props) {
         <Slider.Thumb aria-label="Highest Fr₁" className="block h-5 w-5 rounded-full border-2 border-tailwater bg-white shadow focus-visible:outline-2 focus-visible:outline-tailwater" />
       </Slider.Root>
       <div className="mt-2 flex items-center gap-2 text-sm">
-        <label className="sr-only" htmlFor="fr-min">Lowest Fr₁</label>
-        <input
-          id="fr-min"
-          name="frMin"
-          className="field-input w-20 py-1"
-          inputMode="decimal"
-          placeholder="any"
-          value={lowText}
-          onChange={(e) => setLowText(e.target.value)}
-          onBlur={(e) => fromBox('low', e.target.value)}
-          onKeyDown={(e) => e.key === 'Enter' && fromBox('low', e.currentTarget.value)}
-        />
+        <BoundInput id="fr-min" name="frMin" label="Lowest Fr₁" width="w-20" value={low} onCommit={(v) => onChange(v, high)} />
         <span aria-hidden="true">to</span>
-        <label className="sr-only" htmlFor="fr-max">Highest Fr₁</label>
-        <input
-          id="fr-max"
-          name="frMax"
-          className="field-input w-20 py-1"
-          inputMode="decimal"
-          placeholder="any"
-          value={highText}
-          onChange={(e) => setHighText(e.target.value)}
-          onBlur={(e) => fromBox('high', e.target.value)}
-          onKeyDown={(e) => e.key === 'Enter' && fromBox('high', e.currentTarget.value)}
-        />
+        <BoundInput id="fr-max" name="frMax" label="Highest Fr₁" width="w-20" value={high} onCommit={(v) => onChange(low, v)} />
       </div>
     </fieldset>
   );

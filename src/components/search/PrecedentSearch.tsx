@@ -17,6 +17,7 @@ import {
   type SearchSort,
 } from '../../lib/search/params';
 import type { PrecedentHit, PrecedentResults } from '../../lib/search/results';
+import { BoundInput } from './BoundInput';
 import { FroudeRange } from './FroudeRange';
 import { Highlighted } from './Highlighted';
 
@@ -67,7 +68,6 @@ export default function PrecedentSearch({ initialQuery, initial, canCreate }: Pr
   const [outcome, setOutcome] = useState<SearchOutcome>(initial);
   const [loading, setLoading] = useState(false);
   const [expanded, setExpanded] = useState<Partial<Record<FacetParam, boolean>>>({});
-  const [dischargeText, setDischargeText] = useState({ min: initialQuery.dischargeMin?.toString() ?? '', max: initialQuery.dischargeMax?.toString() ?? '' });
   const controller = useRef<AbortController | null>(null);
   const first = useRef(true);
   const [attempt, setAttempt] = useState(0);
@@ -78,7 +78,8 @@ export default function PrecedentSearch({ initialQuery, initial, canCreate }: Pr
       first.current = false;
       return;
     }
-    const url = `${window.location.pathname}${paramsFromQuery(query).size ? `?${paramsFromQuery(query)}` : ''}`;
+    const params = paramsFromQuery(query).toString();
+    const url = `${window.location.pathname}${params ? `?${params}` : ''}`;
     if (url !== `${window.location.pathname}${window.location.search}`) window.history.pushState(null, '', url);
     controller.current?.abort();
     const current = new AbortController();
@@ -101,7 +102,6 @@ export default function PrecedentSearch({ initialQuery, initial, canCreate }: Pr
       const next = queryFromParams(new URLSearchParams(window.location.search));
       first.current = false;
       setText(next.q);
-      setDischargeText({ min: next.dischargeMin?.toString() ?? '', max: next.dischargeMax?.toString() ?? '' });
       setQuery(next);
     };
     window.addEventListener('popstate', onPop);
@@ -124,13 +124,7 @@ export default function PrecedentSearch({ initialQuery, initial, canCreate }: Pr
     });
   const clearAll = () => {
     setText('');
-    setDischargeText({ min: '', max: '' });
     setQuery((q) => ({ ...q, q: '', frMin: null, frMax: null, dischargeMin: null, dischargeMax: null, facets: { structure: [], shape: [], kind: [], region: [], tag: [] }, page: 1 }));
-  };
-  const commitDischarge = (which: 'min' | 'max', value: string) => {
-    const number = value.trim() === '' ? null : Number(value);
-    if (number !== null && !Number.isFinite(number)) return;
-    update(which === 'min' ? { dischargeMin: number } : { dischargeMax: number });
   };
 
   const results = outcome.ok ? outcome.results : null;
@@ -163,17 +157,9 @@ export default function PrecedentSearch({ initialQuery, initial, canCreate }: Pr
         <fieldset>
           <legend className="field-label">Discharge Q (m³/s)</legend>
           <div className="flex items-center gap-2 text-sm">
-            <label className="sr-only" htmlFor="q-min">Lowest discharge</label>
-            <input id="q-min" className="field-input w-24 py-1" inputMode="decimal" placeholder="any" value={dischargeText.min}
-              onChange={(e) => setDischargeText((d) => ({ ...d, min: e.target.value }))}
-              onBlur={(e) => commitDischarge('min', e.target.value)}
-              onKeyDown={(e) => e.key === 'Enter' && commitDischarge('min', e.currentTarget.value)} />
+            <BoundInput id="q-min" label="Lowest discharge" width="w-24" value={query.dischargeMin} onCommit={(dischargeMin) => update({ dischargeMin })} />
             <span aria-hidden="true">to</span>
-            <label className="sr-only" htmlFor="q-max">Highest discharge</label>
-            <input id="q-max" className="field-input w-24 py-1" inputMode="decimal" placeholder="any" value={dischargeText.max}
-              onChange={(e) => setDischargeText((d) => ({ ...d, max: e.target.value }))}
-              onBlur={(e) => commitDischarge('max', e.target.value)}
-              onKeyDown={(e) => e.key === 'Enter' && commitDischarge('max', e.currentTarget.value)} />
+            <BoundInput id="q-max" label="Highest discharge" width="w-24" value={query.dischargeMax} onCommit={(dischargeMax) => update({ dischargeMax })} />
           </div>
         </fieldset>
         {FACET_PARAMS.map((facet) => {
