@@ -8,12 +8,13 @@ import { keyFigures } from '../cases/keyFigures';
 import { SECTION_SHAPE_LABELS, STRUCTURE_TYPE_LABELS } from '../cases/validation';
 import { plainText } from '../markdown/plainText';
 import { KIND_SPECS, isSolverKind } from '../solver';
+import { pickFigures, type SearchFigures } from './figures';
 
 /** Longest body text indexed, in characters (the start of a case says what it is about). */
 export const MAX_INDEXED_BODY = 20_000;
 
 /** One published case as the search index holds it. Numbers are SI; absent figures are null. */
-export interface SearchDocument {
+export interface SearchDocument extends SearchFigures {
   /** The case id (the index's primary key). */
   id: string;
   /** The firm: every search is filtered on it by the server. */
@@ -44,17 +45,6 @@ export interface SearchDocument {
   publishedAt: number;
   /** …and which revision it is. */
   revision: number;
-  fr1Min: number | null;
-  fr1Max: number | null;
-  dischargeMin: number | null;
-  dischargeMax: number | null;
-  v1: number | null;
-  y1: number | null;
-  y2: number | null;
-  /** Largest relative head loss ΔE/E1. */
-  relativeLoss: number | null;
-  /** Largest surge or bore front speed over the bed, m/s, where a block computes one. */
-  surgeCelerity: number | null;
 }
 
 /** What {@link buildSearchDocument} is made from: the case row and its published revision. */
@@ -120,14 +110,6 @@ export function buildSearchDocument(row: PublishedCaseRow): SearchDocument {
     reviewerNames: [...new Set(row.reviewerNames)],
     publishedAt: row.publishedAt.getTime(),
     revision: row.revision,
-    fr1Min: figures.fr1Min,
-    fr1Max: figures.fr1Max,
-    dischargeMin: figures.dischargeMin,
-    dischargeMax: figures.dischargeMax,
-    v1: figures.v1,
-    y1: figures.y1,
-    y2: figures.y2,
-    relativeLoss: figures.relativeLoss,
-    surgeCelerity: largestCelerity(blocks),
+    ...pickFigures({ ...figures, surgeCelerity: largestCelerity(blocks) }),
   };
 }

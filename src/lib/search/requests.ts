@@ -13,6 +13,7 @@
  * counted with every other filter applied but its own, so ticking "Culvert outlet" still
  * shows how many "Outfall" cases there would be. One extra query per group with a selection.
  */
+import { FIGURE_NAMES } from './figures';
 import { FACET_PARAMS, FACETS, RESULTS_PER_PAGE, type FacetParam, type PrecedentQuery, type SearchSort } from './params';
 
 /** Marks a matched word in `_formatted` (control characters never typed into a case). */
@@ -84,15 +85,7 @@ export const RESULT_ATTRIBUTES = [
   'reviewerNames',
   'publishedAt',
   'revision',
-  'fr1Min',
-  'fr1Max',
-  'dischargeMin',
-  'dischargeMax',
-  'v1',
-  'y1',
-  'y2',
-  'relativeLoss',
-  'surgeCelerity',
+  ...FIGURE_NAMES,
 ];
 
 /** One query of a multi-search (the SDK's shape, without importing it into pure code). */

@@ -3,6 +3,7 @@
  * Highlighted text travels as segments (`{text, hit}`), never as HTML: the page renders
  * each segment as text, a match inside `<mark>`, so nothing a case contains is markup.
  */
+import { pickFigures, type SearchFigures } from './figures';
 import { FACET_PARAMS, FACETS, RESULTS_PER_PAGE, type FacetParam } from './params';
 import { HIGHLIGHT_POST, HIGHLIGHT_PRE } from './requests';
 
@@ -31,17 +32,7 @@ export interface PrecedentHit {
   /** ISO date of publication. */
   publishedAt: string;
   revision: number;
-  figures: {
-    fr1Min: number | null;
-    fr1Max: number | null;
-    dischargeMin: number | null;
-    dischargeMax: number | null;
-    v1: number | null;
-    y1: number | null;
-    y2: number | null;
-    relativeLoss: number | null;
-    surgeCelerity: number | null;
-  };
+  figures: SearchFigures;
 }
 
 /** A facet value and how many results it would give. */
@@ -132,17 +123,7 @@ export function toHit(raw: RawHit): PrecedentHit {
     reviewerNames: stringList(raw.reviewerNames),
     publishedAt: publishedAt === null ? '' : new Date(publishedAt).toISOString(),
     revision: numberOrNull(raw.revision) ?? 0,
-    figures: {
-      fr1Min: numberOrNull(raw.fr1Min),
-      fr1Max: numberOrNull(raw.fr1Max),
-      dischargeMin: numberOrNull(raw.dischargeMin),
-      dischargeMax: numberOrNull(raw.dischargeMax),
-      v1: numberOrNull(raw.v1),
-      y1: numberOrNull(raw.y1),
-      y2: numberOrNull(raw.y2),
-      relativeLoss: numberOrNull(raw.relativeLoss),
-      surgeCelerity: numberOrNull(raw.surgeCelerity),
-    },
+    figures: pickFigures(raw),
   };
 }
 
