@@ -59,21 +59,8 @@ const columns = {
   createdAt: attachment.createdAt,
 };
 
-interface Row {
-  id: string;
-  caseId: string;
-  fileName: string;
-  contentType: string;
-  size: number;
-  sha256: string;
-  caption: string;
-  thumbnailKey: string | null;
-  addedInRevision: number;
-  removedInRevision: number | null;
-  uploaderId: string;
-  uploaderName: string;
-  createdAt: Date;
-}
+/** A row read with {@link columns}: the attachment's own columns and the uploader's name. */
+type Row = Pick<typeof attachment.$inferSelect, Exclude<keyof typeof columns, 'uploaderName'>> & { uploaderName: string };
 
 function toView(row: Row): AttachmentView {
   const { thumbnailKey, ...rest } = row;
