@@ -14,6 +14,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { simpleParser } from 'mailparser';
 import { SMTPServer } from 'smtp-server';
+import { listenOn } from '../scripts/lib/ports.mjs';
 
 const HOST = '127.0.0.1';
 const ID_PATTERN = /^[0-9]{13}-[0-9]{6}$/;
@@ -39,17 +40,8 @@ const ID_PATTERN = /^[0-9]{13}-[0-9]{6}$/;
  * @property {() => Promise<void>} stop  closes both servers and every open connection
  */
 
-/** @param {import('node:net').Server} server @param {number} port @returns {Promise<number>} */
-function listen(server, port) {
-  return new Promise((resolve, reject) => {
-    server.once('error', reject);
-    server.listen(port, HOST, () => {
-      server.off('error', reject);
-      const address = server.address();
-      resolve(typeof address === 'object' && address ? address.port : port);
-    });
-  });
-}
+/** @param {import('node:net').Server} server @param {number} port */
+const listen = (server, port) => listenOn(server, port, HOST);
 
 /** @param {import('mailparser').AddressObject | import('mailparser').AddressObject[] | undefined} value */
 function addressText(value) {

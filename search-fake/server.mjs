@@ -31,6 +31,7 @@ import { Engine } from './engine.mjs';
 import { badRequest, checkIndexUid, errorBody, errorStatus, invalidType, MeiliError } from './errors.mjs';
 import { search, searchParamsFromQuery, validateSearchBody } from './search.mjs';
 import { SETTING_ROUTES } from './settings.mjs';
+import { listenOn } from '../scripts/lib/ports.mjs';
 
 const HOST = '127.0.0.1';
 const MAX_PAYLOAD = 100 * 1024 * 1024;
@@ -361,17 +362,8 @@ function sameKey(a, b) {
   return x.length === y.length && timingSafeEqual(x, y);
 }
 
-/** @param {import('node:net').Server} server @param {number} port @returns {Promise<number>} */
-function listen(server, port) {
-  return new Promise((resolve, reject) => {
-    server.once('error', reject);
-    server.listen(port, HOST, () => {
-      server.off('error', reject);
-      const address = server.address();
-      resolve(typeof address === 'object' && address ? address.port : port);
-    });
-  });
-}
+/** @param {import('node:net').Server} server @param {number} port */
+const listen = (server, port) => listenOn(server, port, HOST);
 
 /**
  * Starts the fake on loopback (port 0 picks a free port), keeping its state in `dir`
