@@ -6,6 +6,7 @@
 import { useEffect, useRef, useState, type DragEvent } from 'react';
 import { ACCEPT_ATTRIBUTE, formatBytes, MAX_FILE_BYTES, MAX_FILES_PER_CASE } from '../../lib/attachments/limits';
 import type { AttachmentView } from '../../lib/attachments/services';
+import { announceAttachmentsChanged } from './events';
 import { uploadFile } from './uploadFile';
 
 interface Props {
@@ -66,7 +67,12 @@ export default function AttachmentsPanel({ caseId, state }: Props) {
       if (outcome.ok) {
         setPending((list) => list.filter((p) => p.key !== key));
         setItems((list) => [...(list ?? []), outcome.attachment as unknown as Attachment]);
-        setNotice(`${outcome.attachment.fileName} attached.`);
+        setNotice(
+          outcome.recalculated
+            ? `${outcome.attachment.fileName} attached. The blocks that read it were recalculated as revision ${outcome.revision}.`
+            : `${outcome.attachment.fileName} attached.`,
+        );
+        announceAttachmentsChanged(caseId);
       } else patchPending(key, { error: outcome.message, progress: 0 });
     }
   }
@@ -90,8 +96,14 @@ export default function AttachmentsPanel({ caseId, state }: Props) {
   async function remove(item: Attachment) {
     const response = await fetch(`${base}/${item.id}`, { method: 'DELETE', headers: { 'content-type': 'application/json' } });
     if (!response.ok) return setNotice(await apiError(response));
+    const removed = (await response.json().catch(() => ({}))) as { recalculated?: boolean; removedInRevision?: number };
     setItems((list) => (list ?? []).filter((a) => a.id !== item.id));
-    setNotice(`${item.fileName} removed from this revision.`);
+    setNotice(
+      removed.recalculated
+        ? `${item.fileName} removed. The blocks that read it were recalculated as revision ${removed.removedInRevision}.`
+        : `${item.fileName} removed from this revision.`,
+    );
+    announceAttachmentsChanged(caseId);
   }
 
   return (

@@ -13,6 +13,7 @@ import type { BlockResult } from '../../lib/calc';
 import { BlockChart } from './BlockChart';
 import { BlockBody, BlockHeader, PANEL_BODY_CLASS, type BlockHead } from './BlockResults';
 import { SymbolText } from './typeset';
+import type { BlockFiles } from '../../lib/calc/files';
 import { evaluateWhatIf, whatIfSource, typedLiteral, type WhatIfField, type WhatIfPlan } from './whatIf';
 
 /** Props of {@link WhatIfBlock}. */
@@ -25,6 +26,8 @@ export interface WhatIfBlockProps {
   readonly source: string;
   /** Id of the heading, named by the static frame's `aria-labelledby`. */
   readonly headingId: string;
+  /** The attached files the block reads (a rating CSV), when it reads any. */
+  readonly files?: BlockFiles;
   /** Heading level of the block title (default 3). */
   readonly headingLevel?: 2 | 3 | 4 | 5;
   /** Draw the block's chart in what-if results (default true). */
@@ -62,7 +65,7 @@ function Field({ field, value, invalid, onChange, id }: { field: WhatIfField; va
 }
 
 /** A block's header with a what-if form and live body; see the module comment. */
-export function WhatIfBlock({ head, plan, source, headingId, headingLevel = 3, chart = true }: WhatIfBlockProps) {
+export function WhatIfBlock({ head, plan, source, headingId, files, headingLevel = 3, chart = true }: WhatIfBlockProps) {
   const id = useId();
   const initial = useMemo(() => Object.fromEntries(plan.fields.map((f) => [f.name, f.initial])), [plan]);
   const [values, setValues] = useState<Record<string, string>>(initial);
@@ -73,8 +76,8 @@ export function WhatIfBlock({ head, plan, source, headingId, headingLevel = 3, c
   const shown = useMemo(() => {
     if (!live) return null;
     const text = whatIfSource(source, plan, values, head.unitSystem);
-    return text === null ? null : evaluateWhatIf(head, text);
-  }, [live, head, source, plan, values]);
+    return text === null ? null : evaluateWhatIf(head, text, files);
+  }, [live, head, source, plan, values, files]);
   // While a field does not read as a number, keep showing the last complete answer.
   const [lastGood, setLastGood] = useState<BlockResult | null>(null);
   if (shown && shown !== lastGood) setLastGood(shown);

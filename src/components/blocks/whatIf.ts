@@ -10,6 +10,7 @@ import type { BlockResult, ShownValue } from '../../lib/calc';
 // request schemas (requests.ts), whose module-level z.object() calls no bundler can drop,
 // and zod is ~450 kB minified: 3/4 of this island. These three modules need only the solver.
 import { evaluateCase } from '../../lib/calc/evaluateCase';
+import { NO_FILES, type BlockFiles } from '../../lib/calc/files';
 import { extractBlocks } from '../../lib/calc/extractBlocks';
 import { parseBlock, parseNumber } from '../../lib/calc/parseBlock';
 import { displayUnit, getKindSpec, type KindSpec, type Quantity, type UnitSystem } from '../../lib/solver';
@@ -122,9 +123,9 @@ export function whatIfSource(source: string, plan: WhatIfPlan, values: Readonly<
 
 /**
  * Evaluates the block text alone, on the same line numbers as in the case (blank lines are
- * put in front), and keeps the block's index in the case.
+ * put in front), with the attached files it reads, and keeps the block's index in the case.
  */
-export function evaluateWhatIf(block: Pick<BlockResult, 'line' | 'index'>, text: string): BlockResult | null {
-  const result = evaluateCase('\n'.repeat(Math.max(0, block.line - 1)) + text).blocks[0];
+export function evaluateWhatIf(block: Pick<BlockResult, 'line' | 'index'>, text: string, files: BlockFiles = NO_FILES): BlockResult | null {
+  const result = evaluateCase('\n'.repeat(Math.max(0, block.line - 1)) + text, files).blocks[0];
   return result ? { ...result, index: block.index } : null;
 }

@@ -1,8 +1,9 @@
 /**
  * The body of a case's reading page, rendered once per revision and kept in memory.
  *
- * A revision's text never changes (a database trigger refuses updates), so its rendering
- * depends only on the revision and the solver: the cache key is the revision id and
+ * A revision's text never changes (a database trigger refuses updates), and neither do the
+ * files its blocks read (changing one writes a new revision), so its rendering depends only
+ * on the revision and the solver: the cache key is the revision id and
  * `SOLVER_VERSION`. Each entry holds the sanitised HTML between blocks, each block's saved
  * results rendered to static HTML (tables, warnings, charts), and the small props of the
  * what-if island of each block that has inputs to change, with the header it replaces. A
@@ -17,6 +18,7 @@ import { renderToStaticMarkup } from 'react-dom/server';
 import { escapeHtml, renderCase } from '../../lib/markdown';
 import { SOLVER_VERSION } from '../../lib/solver';
 import type { CaseEvaluation } from '../../lib/calc/results';
+import { filesNamedIn, matchFileName, NO_FILES, type BlockFiles } from '../../lib/calc/files';
 import { BlockChart } from '../blocks/BlockChart';
 import { BlockBody, BlockHeader, blockHead, BlockResults, PANEL_BODY_CLASS, PANEL_CLASS, type BlockHead } from '../blocks/BlockResults';
 import type { WhatIfBlockProps } from '../blocks/WhatIfBlock';
@@ -84,8 +86,8 @@ const cache = new LRUCache<string, ReadingRender>({
  * pipeline falls back to escaped text, and a block whose rendering fails shows a notice
  * instead of taking the page down.
  */
-export function renderReadingBody(body: string): ReadingBody {
-  const rendered = renderCase(body);
+export function renderReadingBody(body: string, files: BlockFiles = NO_FILES): ReadingBody {
+  const rendered = renderCase(body, files);
   const lines = body.split(/\r\n|\r|\n/);
   const parts: ReadingPart[] = [];
   for (const segment of rendered.segments) {
@@ -117,7 +119,8 @@ export function renderReadingBody(body: string): ReadingBody {
         );
         const head = blockHead(block);
         const headingId = `block-${block.index}-title`;
-        const props: WhatIfBlockProps = { head, headingId, plan, source };
+        const blockFiles = filesOfBlock(source, files);
+        const props: WhatIfBlockProps = { head, headingId, plan, source, ...(blockFiles ? { files: blockFiles } : {}) };
         const headerHtml = renderToStaticMarkup(<BlockHeader head={head} headingId={headingId} />);
         parts.push({ type: 'what-if', head, headingId, payload: JSON.stringify(props), headerHtml, bodyHtml });
       }
@@ -130,6 +133,21 @@ export function renderReadingBody(body: string): ReadingBody {
     }
   }
   return { parts, evaluation: rendered.evaluation };
+}
+
+/** The part of `files` one block's text reads (its names, the texts it names), or null when it reads none. */
+function filesOfBlock(source: string, files: BlockFiles): BlockFiles | null {
+  const named = filesNamedIn(source);
+  if (named.length === 0) return null;
+  const texts: Record<string, string> = {};
+  const unreadable: Record<string, string> = {};
+  for (const asked of named) {
+    const name = matchFileName(asked, files.names);
+    if (name === undefined) continue;
+    if (files.texts[name] !== undefined) texts[name] = files.texts[name]!;
+    if (files.unreadable?.[name] !== undefined) unreadable[name] = files.unreadable[name]!;
+  }
+  return { names: files.names, texts, ...(Object.keys(unreadable).length ? { unreadable } : {}) };
 }
 
 /**
@@ -160,11 +178,12 @@ export function readingChunks(parts: readonly ReadingPart[]): ReadingChunk[] {
  * The reading body of revision `revisionId` (whose markdown is `body`) as page chunks with
  * its evaluation, from the cache when this server has rendered it before with the same solver.
  */
-export function readingBody(revisionId: string, body: string): ReadingRender {
+export async function readingBody(revisionId: string, body: string, loadFiles: () => Promise<BlockFiles>): Promise<ReadingRender> {
   const key = `${revisionId}@${SOLVER_VERSION}`;
   const hit = cache.get(key);
   if (hit) return hit;
-  const rendered = renderReadingBody(body);
+  // The files a revision's blocks read are fixed with it (a change of them writes a new revision).
+  const rendered = renderReadingBody(body, filesNamedIn(body).length ? await loadFiles() : NO_FILES);
   const made: ReadingRender = { chunks: readingChunks(rendered.parts), evaluation: rendered.evaluation };
   cache.set(key, made);
   return made;

@@ -26,9 +26,20 @@ function Cross({ x, y }: { x: number; y: number }) {
   return <path d={`M${x - 4},${y - 4}L${x + 4},${y + 4}M${x - 4},${y + 4}L${x + 4},${y - 4}`} stroke={PALETTE.fault} strokeWidth={1.6} />;
 }
 
-function Legend({ x, y, swept }: { x: number; y: number; swept: boolean }) {
+/** An open diamond: a point of the rating the block was given. */
+function Diamond({ x, y }: { x: number; y: number }) {
+  return <path d={`M${x},${y - 4.5}L${x + 4.5},${y}L${x},${y + 4.5}L${x - 4.5},${y}Z`} fill="white" stroke={PALETTE.ink} strokeWidth={1.2} />;
+}
+
+function Legend({ x, y, swept, rating }: { x: number; y: number; swept: boolean; rating: string | null }) {
   return (
     <g {...text} fill={PALETTE.ink} aria-hidden="true">
+      {rating !== null && (
+        <g>
+          <Diamond x={x + 9} y={y + 16} />
+          <text x={x + 24} y={y + 20}>{rating}</text>
+        </g>
+      )}
       <line x1={x} x2={x + 18} y1={y} y2={y} stroke={PALETTE.slate} strokeWidth={1.75} />
       <circle cx={x + 9} cy={y} r={2.75} fill={PALETTE.slate} />
       <text x={x + 24} y={y + 4}>sequent depth y2</text>
@@ -55,7 +66,8 @@ export function TailwaterChart({ block }: TailwaterChartProps) {
   const x = niceScale(s.qMin / q.factor, s.qMax / q.factor, [64, WIDTH - 20], 6);
   // Start the depth axis at zero unless the depths sit high above it: the margins are the point.
   const floor = s.depthMin > 0.45 * s.depthMax ? s.depthMin * 0.9 : 0;
-  const y = niceScale(floor / d.factor, (s.depthMax * 1.05) / d.factor, [250, 40], 5);
+  const top = s.rating.length ? 56 : 40;
+  const y = niceScale(floor / d.factor, (s.depthMax * 1.05) / d.factor, [250, top], 5);
   const px = (p: TailwaterPoint) => x(p.q / q.factor);
   const depthY = (v: number) => y(v / d.factor);
   const y2Line = line<TailwaterPoint>().defined((p) => p.y2 !== null).x(px).y((p) => depthY(p.y2!));
@@ -69,6 +81,7 @@ export function TailwaterChart({ block }: TailwaterChartProps) {
   const markers = points.length <= MARKER_LIMIT;
   const swept = points.filter((p) => p.state === 'swept-out' && p.y2 !== null);
   const qText = (v: number) => `${formatShort(v / q.factor)} ${q.label}`;
+  const ratingLabel = s.rating.length ? `rating points${s.ratingSource ? ` (${s.ratingSource})` : ''}` : null;
   const summary =
     s.sweptOut === 0
       ? 'The tailwater holds the jump at every flow.'
@@ -76,8 +89,8 @@ export function TailwaterChart({ block }: TailwaterChartProps) {
   return (
     <svg viewBox={`0 0 ${WIDTH} ${HEIGHT}`} width="100%" role="img" aria-labelledby={`${id}t ${id}d`} className="block h-auto max-w-full">
       <title id={`${id}t`}>{`Sequent depth and tailwater against discharge${block.name ? `, block ${block.name}` : ''}`}</title>
-      <desc id={`${id}d`}>{`Sequent depth y2 and tailwater depth TW for ${points.length} flows from ${qText(s.qMin)} to ${qText(s.qMax)}. ${summary}`}</desc>
-      <Legend x={64} y={18} swept={s.sweptOut > 0} />
+      <desc id={`${id}d`}>{`Sequent depth y2 and tailwater depth TW for ${points.length} flows from ${qText(points[0]!.q)} to ${qText(points[points.length - 1]!.q)}. ${summary}${ratingLabel ? ` The ${s.rating.length} ${ratingLabel} are drawn as open diamonds.` : ''}`}</desc>
+      <Legend x={64} y={18} swept={s.sweptOut > 0} rating={ratingLabel} />
       <Axes x={x} y={y} xTitle={axisTitle('Discharge Q', q)} yTitle={axisTitle('Depth above apron', d)} xTickCount={6} />
       <path d={gap(points) ?? ''} fill={PALETTE.fault} fillOpacity={0.12} stroke="none" />
       <path d={y2Line(points) ?? ''} fill="none" stroke={PALETTE.slate} strokeWidth={1.75} />
@@ -89,6 +102,7 @@ export function TailwaterChart({ block }: TailwaterChartProps) {
             {p.tw !== null && <rect x={px(p) - 2.75} y={depthY(p.tw) - 2.75} width={5.5} height={5.5} fill={PALETTE.tailwater} />}
           </g>
         ))}
+      {s.rating.length <= MARKER_LIMIT * 4 && s.rating.map((r, i) => <Diamond key={`r${i}`} x={x(r.q / q.factor)} y={depthY(r.depth)} />)}
       {swept.length <= MARKER_LIMIT && swept.map((p) => (
         <Cross key={`x${p.q}`} x={px(p)} y={depthY(p.y2!) - 9} />
       ))}

@@ -13,9 +13,19 @@ export interface TailwaterPoint {
   readonly state: string;
 }
 
+/** A point of the tailwater rating the block was given (SI). */
+export interface RatingPoint {
+  readonly q: number;
+  readonly depth: number;
+}
+
 /** The points of a tailwater block, in discharge order, and the extent of the values. */
 export interface TailwaterSeries {
   readonly points: readonly TailwaterPoint[];
+  /** The rating's own points (depth above the apron), when the block was given a table. */
+  readonly rating: readonly RatingPoint[];
+  /** The attached file the rating came from; null for rows written in the block. */
+  readonly ratingSource: string | null;
   readonly qMin: number;
   readonly qMax: number;
   readonly depthMin: number;
@@ -41,13 +51,39 @@ export function tailwaterSeries(block: BlockResult): TailwaterSeries | null {
   }
   if (points.length === 0) return null;
   points.sort((a, b) => a.q - b.q);
-  const depths = points.flatMap((p) => [p.y2, p.tw]).filter((d): d is number => d !== null);
+  const { rating, source } = ratingOf(block);
+  const depths = [...points.flatMap((p) => [p.y2, p.tw]), ...rating.map((r) => r.depth)].filter((d): d is number => d !== null);
+  const qs = [...points.map((p) => p.q), ...rating.map((r) => r.q)];
   return {
     points,
-    qMin: points[0]!.q,
-    qMax: points[points.length - 1]!.q,
+    rating,
+    ratingSource: source,
+    qMin: qs.reduce((a, b) => Math.min(a, b)),
+    qMax: qs.reduce((a, b) => Math.max(a, b)),
     depthMin: depths.length ? depths.reduce((a, b) => Math.min(a, b)) : 0,
     depthMax: depths.length ? depths.reduce((a, b) => Math.max(a, b)) : 0,
     sweptOut: points.filter((p) => p.state === 'swept-out').length,
   };
+}
+
+/**
+ * The rating points of a block given a table: depth above the apron as the solver used it,
+ * so a rating given as stage is shown less the apron level.
+ */
+function ratingOf(block: BlockResult): { rating: RatingPoint[]; source: string | null } {
+  const table = block.tables?.find((t) => t.name === 'tailwaterRating');
+  if (!table) return { rating: [], source: null };
+  const q = table.columns['discharge'] ?? [];
+  let depth = table.columns['depth'];
+  if (!depth && table.columns['stage']) {
+    const apron = block.inputs.find((i) => i.name === 'apronLevel')?.si;
+    depth = typeof apron === 'number' ? table.columns['stage'].map((s) => s - apron) : undefined;
+  }
+  if (!depth) return { rating: [], source: table.source };
+  const rating: RatingPoint[] = [];
+  q.forEach((x, i) => {
+    const d = finite(depth![i]);
+    if (finite(x) !== null && d !== null) rating.push({ q: x, depth: d });
+  });
+  return { rating, source: table.source };
 }

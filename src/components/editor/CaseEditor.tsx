@@ -8,12 +8,14 @@ import MDEditor, { type RefMDEditor } from '@uiw/react-md-editor/nohighlight';
 import '@uiw/react-md-editor/markdown-editor.css';
 import { useCallback, useDeferredValue, useEffect, useMemo, useRef, useState } from 'react';
 import { BLOCK_TEMPLATES } from '../../lib/calc';
+import { NO_FILES, type BlockFiles } from '../../lib/calc/files';
 import { CaseMetadataSchema, MAX_SUMMARY_LENGTH, SECTION_SHAPE_LABELS, STRUCTURE_TYPE_LABELS } from '../../lib/cases/validation';
 import { CasePreview } from './CasePreview';
 import { browserDraftStore, saveDraft } from './caseApi';
 import { ConflictPanel } from './ConflictPanel';
 import { DraftSaver, type ConflictingRevision, type SaveStatus } from './draftSaver';
 import { SaveIndicator } from './SaveIndicator';
+import { useBlockFiles } from './useBlockFiles';
 
 /** The case's metadata as the form edits it (tags as one comma-separated text). */
 export interface EditorMetadata {
@@ -31,6 +33,8 @@ export interface CaseEditorProps {
   revision: number;
   body: string;
   metadata: EditorMetadata;
+  /** The attached files the blocks may read, as the page loaded them. */
+  files?: BlockFiles;
 }
 
 const toPayloadMetadata = (m: EditorMetadata) => ({
@@ -59,6 +63,7 @@ export default function CaseEditor(props: CaseEditorProps) {
     [props.caseId, props.revision, store],
   );
   const previewText = useDeferredValue(body);
+  const files = useBlockFiles(props.caseId, props.files ?? NO_FILES);
 
   const fieldErrors = useMemo(() => fieldErrorsOf(metadata), [metadata]);
 
@@ -218,7 +223,7 @@ export default function CaseEditor(props: CaseEditorProps) {
             textareaProps={{ 'aria-label': 'Case text (markdown with calculation blocks)', spellCheck: true }}
           />
         </div>
-        <CasePreview markdown={previewText} stale={previewText !== body} />
+        <CasePreview markdown={previewText} files={files} stale={previewText !== body} />
       </div>
     </div>
   );

@@ -1,14 +1,16 @@
 import { useMemo } from 'react';
+import { NO_FILES, type BlockFiles } from '../../lib/calc/files';
 import { renderCase } from '../../lib/markdown/renderCase';
 import { BlockChart } from '../blocks/BlockChart';
 import { BlockResults } from '../blocks/BlockResults';
 
 /**
  * The case as it will read: the same markdown pipeline and block results as the reading
- * page, computed in the browser. The pipeline sanitises the HTML it returns.
+ * page, computed in the browser, with the case's attached CSV files for blocks that read
+ * one. The pipeline sanitises the HTML it returns.
  */
-export function CasePreview({ markdown, stale }: { markdown: string; stale: boolean }) {
-  const rendered = useMemo(() => renderCase(markdown), [markdown]);
+export function CasePreview({ markdown, files = NO_FILES, stale }: { markdown: string; files?: BlockFiles; stale: boolean }) {
+  const rendered = useMemo(() => renderCase(markdown, files), [markdown, files]);
   return (
     <section aria-label="Preview" className={`case-preview rounded border border-rule bg-white px-6 py-5 ${stale ? 'opacity-80' : ''}`} data-testid="case-preview">
       <div className="prose prose-slate max-w-none prose-headings:font-serif prose-code:before:content-none prose-code:after:content-none">

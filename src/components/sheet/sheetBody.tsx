@@ -10,6 +10,7 @@ import { LRUCache } from 'lru-cache';
 import { SOLVER_VERSION } from '../../lib/solver';
 import type { CaseEvaluation } from '../../lib/calc/results';
 import { PANEL_BODY_CLASS, PANEL_CLASS } from '../blocks/BlockResults';
+import { filesNamedIn, NO_FILES, type BlockFiles } from '../../lib/calc/files';
 import { renderReadingBody, type ReadingPart } from '../cases/readingBody';
 
 /** A revision as its sheet writes it. */
@@ -36,11 +37,12 @@ export function sheetHtml(parts: readonly ReadingPart[]): string {
 }
 
 /** The sheet body of revision `revisionId` (markdown `body`), from the cache when rendered before. */
-export function sheetBody(revisionId: string, body: string): SheetBody {
+export async function sheetBody(revisionId: string, body: string, loadFiles: () => Promise<BlockFiles>): Promise<SheetBody> {
   const key = `${revisionId}@${SOLVER_VERSION}`;
   const hit = cache.get(key);
   if (hit) return hit;
-  const rendered = renderReadingBody(body);
+  // As on the reading page: a revision's files are fixed with it.
+  const rendered = renderReadingBody(body, filesNamedIn(body).length ? await loadFiles() : NO_FILES);
   const made: SheetBody = { html: sheetHtml(rendered.parts), evaluation: rendered.evaluation };
   cache.set(key, made);
   return made;

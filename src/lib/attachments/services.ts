@@ -9,9 +9,12 @@ import { and, asc, count, eq, gt, isNull, lte, or, sql } from 'drizzle-orm';
 import type { Database, Queryable } from '../../db/client';
 import { attachment, caseFile, user } from '../../db/schema';
 import { recordAudit } from '../audit';
-import { lockCase } from '../cases';
+import { filesNamedIn } from '../calc';
+import { lockCase, revisionBody, writeRecalculatedRevision } from '../cases';
+import { evaluateRevision } from './blockFiles';
 import type { FileStore, StoredFile } from '../storage';
 import { MAX_FILES_PER_CASE } from './limits';
+import { visibleIn } from './visibility';
 import type { AttachmentFailure } from './messages';
 
 /** An attachment as the API and pages show it. */
@@ -79,9 +82,6 @@ export function workingRevision(found: { latestRevision: number; publishedRevisi
 
 const EDITABLE = new Set(['draft', 'returned', 'published']);
 
-function visibleIn(revision: number) {
-  return and(lte(attachment.addedInRevision, revision), or(isNull(attachment.removedInRevision), gt(attachment.removedInRevision, revision)));
-}
 
 /**
  * The files of a case of the firm seen by `revision` (default: the revision being worked
@@ -147,7 +147,7 @@ export async function addAttachments(
   database: Database,
   store: FileStore,
   input: { firmId: string; caseId: string; userId: string; files: CheckedFile[]; caption: string },
-): Promise<{ ok: true; revision: number; attachments: AttachmentView[] } | Fail> {
+): Promise<{ ok: true; revision: number; recalculated: boolean; attachments: AttachmentView[] } | Fail> {
   const allowed = await canChangeAttachments(database, input.firmId, input.caseId, input.userId);
   if (!allowed.ok) return allowed;
   const stored: Array<{ file: CheckedFile; main: StoredFile; thumb: StoredFile | null }> = [];
@@ -161,7 +161,8 @@ export async function addAttachments(
     if (!found) return { ok: false, reason: 'not_found' } as const;
     if (found.authorId !== input.userId) return { ok: false, reason: 'not_author' } as const;
     if (!EDITABLE.has(found.state)) return { ok: false, reason: 'not_editable' } as const;
-    const revision = workingRevision(found);
+    const recalculate = await recalculation(tx, input.firmId, found, input.files.map((f) => f.fileName));
+    const revision = recalculate ? recalculate.revision : workingRevision(found);
     const [{ n }] = (await tx
       .select({ n: count() })
       .from(attachment)
@@ -196,6 +197,7 @@ export async function addAttachments(
         details: { attachmentId: id, fileName: file.fileName, contentType: file.contentType, size: main.size, sha256: main.sha256, revision },
       });
     }
+    if (recalculate) await recalculate.write(input.userId, store);
     const rows = await tx
       .select(columns)
       .from(attachment)
@@ -204,8 +206,36 @@ export async function addAttachments(
       .orderBy(asc(attachment.createdAt), asc(attachment.id));
     const order = new Map(ids.map((id, i) => [id, i]));
     rows.sort((a, b) => order.get(a.id)! - order.get(b.id)!);
-    return { ok: true, revision, attachments: rows.map(toView) } as const;
+    return { ok: true, revision, recalculated: recalculate !== null, attachments: rows.map(toView) } as const;
   });
+}
+
+/**
+ * When a file change on a draft touches a file its latest body reads (by name), the change
+ * goes to a new revision (the latest + 1: the same body, recalculated with the files it
+ * then sees), so the revision before keeps its files and results. Null when no block reads
+ * any of `fileNames`, or the case has no draft revision to recalculate (a published case:
+ * the next save evaluates with the files).
+ */
+async function recalculation(
+  tx: Queryable,
+  firmId: string,
+  found: { id: string; latestRevision: number; publishedRevision: number | null },
+  fileNames: readonly string[],
+): Promise<{ revision: number; write: (authorId: string, store?: FileStore) => Promise<void> } | null> {
+  if (workingRevision(found) !== found.latestRevision) return null;
+  const body = await revisionBody(tx, firmId, found.id, found.latestRevision);
+  if (body === null) return null;
+  const named = new Set(filesNamedIn(body).map((n) => n.toLowerCase()));
+  if (!fileNames.some((n) => named.has(n.toLowerCase()))) return null;
+  const revision = found.latestRevision + 1;
+  return {
+    revision,
+    write: async (authorId, store) => {
+      const results = await evaluateRevision(tx, { firmId, caseId: found.id, revision, body }, store);
+      await writeRecalculatedRevision(tx, { firmId, caseId: found.id, number: revision, body, authorId, results });
+    },
+  };
 }
 
 async function lockedAttachment(tx: Queryable, firmId: string, caseId: string, attachmentId: string, userId: string) {
@@ -231,20 +261,24 @@ async function lockedAttachment(tx: Queryable, firmId: string, caseId: string, a
 export async function removeAttachment(
   database: Database,
   input: { firmId: string; caseId: string; attachmentId: string; userId: string },
-): Promise<{ ok: true; removedInRevision: number } | Fail> {
+  store?: FileStore,
+): Promise<{ ok: true; removedInRevision: number; recalculated: boolean } | Fail> {
   return database.transaction(async (tx) => {
     const locked = await lockedAttachment(tx, input.firmId, input.caseId, input.attachmentId, input.userId);
     if (!locked.ok) return locked;
-    await tx.update(attachment).set({ removedInRevision: locked.revision, removedAt: new Date() }).where(eq(attachment.id, locked.row.id));
+    const recalculate = await recalculation(tx, input.firmId, locked.found, [locked.row.fileName]);
+    const revision = recalculate ? recalculate.revision : locked.revision;
+    await tx.update(attachment).set({ removedInRevision: revision, removedAt: new Date() }).where(eq(attachment.id, locked.row.id));
+    if (recalculate) await recalculate.write(input.userId, store);
     await recordAudit(tx, {
       firmId: input.firmId,
       actorUserId: input.userId,
       action: 'case.attachment_removed',
       targetType: 'case',
       targetId: locked.found.id,
-      details: { attachmentId: locked.row.id, fileName: locked.row.fileName, revision: locked.revision },
+      details: { attachmentId: locked.row.id, fileName: locked.row.fileName, revision, ...(recalculate ? { recalculated: true } : {}) },
     });
-    return { ok: true, removedInRevision: locked.revision } as const;
+    return { ok: true, removedInRevision: revision, recalculated: recalculate !== null } as const;
   });
 }
 

@@ -13,7 +13,7 @@ import {
   type Warning,
 } from '../solver';
 import type { ResolvedInputs } from './resolveInputs';
-import type { BlockResult, BlockWarning, ShownColumn, ShownValue } from './results';
+import type { BlockResult, BlockWarning, InputTable, ShownColumn, ShownValue } from './results';
 
 function unitText(quantity: string, system: UnitSystem): { factor: number; unit: string } {
   const unit = quantity === 'text' ? undefined : displayUnit(quantity as Quantity, system);
@@ -58,9 +58,26 @@ export interface ResultParts {
 export function buildResult(p: ResultParts): BlockResult {
   const { spec, solved, resolved } = p;
   const system = resolved.unitSystem;
-  const inputs = spec.inputs
-    .filter((f) => resolved.inputs[f.name] !== undefined && f.type !== 'table')
-    .map((f) => show(f, resolved.inputs[f.name] as ShownValue['si'], system));
+  const inputs: ShownValue[] = [];
+  const tables: InputTable[] = [];
+  for (const f of spec.inputs) {
+    const given = resolved.inputs[f.name];
+    if (given === undefined) continue;
+    if (f.type !== 'table') {
+      inputs.push(show(f, given as ShownValue['si'], system));
+      continue;
+    }
+    const t = given as Record<string, unknown>;
+    const columns: Record<string, readonly number[]> = {};
+    for (const c of f.columns ?? []) if (Array.isArray(t[c.name])) columns[c.name] = t[c.name] as number[];
+    const source = typeof t['source'] === 'string' ? t['source'] : null;
+    const rowNumbers = Array.isArray(t['rowNumbers']) ? (t['rowNumbers'] as number[]) : undefined;
+    tables.push({ name: f.name, label: f.label, source, ...(rowNumbers ? { rowNumbers } : {}), columns });
+    if (source !== null) {
+      const rows = Object.values(columns)[0]?.length ?? 0;
+      inputs.push(show({ ...f, quantity: 'text' }, `file ${source}, ${rows} rows`, system));
+    }
+  }
   const outputs = spec.outputs.map((o) => show(o, solved.values[o.name] ?? null, system));
   const warnings: BlockWarning[] = p.warnings.map((w) => {
     const line = w.field !== undefined ? resolved.lineOf[w.field] : undefined;
@@ -89,6 +106,7 @@ export function buildResult(p: ResultParts): BlockResult {
     inputs,
     outputs,
     ...(table ? { table } : {}),
+    ...(tables.length ? { tables } : {}),
     warnings,
     errors: [],
     methodNote: spec.methodNote,

@@ -1,12 +1,14 @@
 /**
  * Evaluates every calculation block of a case body in dependency order: blocks can refer
- * to other named blocks' outputs (`y1 = toe.y1`). Cycles and unknown references become
+ * to other named blocks' outputs (`y1 = toe.y1`) and read attached CSV files
+ * (`rating = file "river-rating.csv"`). Cycles and unknown references become
  * line-numbered errors; a broken block never stops the others. Never throws.
  */
 import { isSolverKind, KIND_SPECS, solve, SOLVER_VERSION, type KindSpec, type Quantity, type UnitSystem } from '../solver';
 import { solverKindOf } from './blockWords';
 import { buildResult } from './buildResult';
 import { extractBlocks } from './extractBlocks';
+import { NO_FILES, readBlockFile, type BlockFiles } from './files';
 import { parseBlock } from './parseBlock';
 import { closest, resolveInputs, type ReferenceValue } from './resolveInputs';
 import type { BlockResult, CaseEvaluation } from './results';
@@ -44,8 +46,13 @@ function failed(node: Node, errors: LineIssue[], unitSystem: UnitSystem = 'SI'):
   };
 }
 
-/** Evaluates a whole case body; see the module comment. */
-export function evaluateCase(markdown: string): CaseEvaluation {
+/**
+ * Evaluates a whole case body; see the module comment. `files` are the revision's attached
+ * files that blocks may read (`rating = file "river-rating.csv"`); without them such a
+ * block reports that the file is not attached.
+ */
+export function evaluateCase(markdown: string, files: BlockFiles = NO_FILES): CaseEvaluation {
+  const readFile = (name: string) => readBlockFile(files, name);
   const nodes: Node[] = extractBlocks(typeof markdown === 'string' ? markdown : '').map((raw, index) => {
     const source = parseBlock(raw);
     const kind = solverKindOf(source.word);
@@ -101,7 +108,7 @@ export function evaluateCase(markdown: string): CaseEvaluation {
       }
       return { ok: true, value: found.si, quantity: Array.isArray(found.si) ? 'list' : (found.quantity as Quantity) };
     };
-    const resolved = resolveInputs(spec, node.source.assignments, lookup);
+    const resolved = resolveInputs(spec, node.source.assignments, lookup, readFile);
     visiting.delete(node);
     issues.push(...resolved.issues);
     if (issues.length) return finish(node, failed(node, issues, resolved.unitSystem));

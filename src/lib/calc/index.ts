@@ -6,5 +6,6 @@ export { extractBlocks, type RawBlock } from './extractBlocks';
 export { parseBlock, parseNumber } from './parseBlock';
 export { MAX_LIST_LENGTH } from './resolveInputs';
 export { EvaluateRequestSchema, JsonInputSchema, SolveRequestSchema, type SolveRequest } from './requests';
-export type { BlockResult, BlockWarning, CaseEvaluation, ShownColumn, ShownValue } from './results';
+export type { BlockResult, BlockWarning, CaseEvaluation, InputTable, ShownColumn, ShownValue } from './results';
+export { filesKey, filesNamedIn, matchFileName, NO_FILES, readBlockFile, type BlockFiles } from './files';
 export type { Assignment, BlockSource, LineIssue, ValueNode } from './syntax';

@@ -10,6 +10,8 @@ const NUMBER_WITH_UNIT = new RegExp(String.raw`^(${NUMBER})\s*([^\s\d.,+\-][^\s,
 const RANGE = new RegExp(String.raw`^(${NUMBER})\s+to\s+(${NUMBER})\s*([^\s\d.,+\-][^\s,]*)?\s+(step|count)\s+(${NUMBER})$`, 'i');
 const REFERENCE = /^([A-Za-z][\w-]*)\.([A-Za-z][\w/]*)$/;
 const WORD = /^[A-Za-z][\w-]*$/;
+/** `file "name with spaces.csv"` or `file name.csv`. */
+const FILE = /^file\s+(?:"([^"]*)"|([^\s"]+))$/i;
 const KEY = /^[A-Za-z][\w-]*$/;
 const NAME = /^[a-z][a-z0-9_-]*$/i;
 const THOUSANDS = /^\d{1,3}(,\d{3})+(\.\d+)?(\s|$)/;
@@ -26,12 +28,18 @@ export function parseNumber(text: string): NumberLiteral | null {
 /** The outcome of reading one value. */
 export type Read = { ok: true; value: ValueNode } | { ok: false; message: string; hint?: string };
 
-/** Reads the text right of `=`: a number with unit, list, range, reference or word. */
+/** Reads the text right of `=`: a number with unit, list, range, reference, attached file or word. */
 export function readValue(text: string): Read {
   if (text === '') return { ok: false, message: 'The value is missing after "=".', hint: 'Write for example b = 12 m' };
   if (THOUSANDS.test(text)) {
     const plain = text.replace(/,(?=\d{3})/g, '');
     return { ok: false, message: 'Commas separate list items, so thousands cannot be written with commas.', hint: `Write ${plain}` };
+  }
+  const file = FILE.exec(text);
+  if (file) {
+    const name = (file[1] ?? file[2] ?? '').trim();
+    if (!name) return { ok: false, message: 'Name the attached file in quotes after "file".', hint: 'rating = file "river-rating.csv"' };
+    return { ok: true, value: { type: 'file', name } };
   }
   const reference = REFERENCE.exec(text);
   if (reference) return { ok: true, value: { type: 'reference', block: reference[1]!, output: reference[2]! } };

@@ -23,6 +23,12 @@ export const SolveRequestSchema = z
   .strict();
 
 /** `POST /api/v1/evaluate`: a whole case body. */
-export const EvaluateRequestSchema = z.object({ markdown: z.string().max(200_000, 'A case body may have at most 200,000 characters.') }).strict();
+export const EvaluateRequestSchema = z
+  .object({
+    markdown: z.string().max(200_000, 'A case body may have at most 200,000 characters.'),
+    /** A case of the caller's firm whose attached files (of the revision being worked on) blocks may read. */
+    caseId: z.uuid('caseId must be a case id.').optional(),
+  })
+  .strict();
 
 export type SolveRequest = z.output<typeof SolveRequestSchema>;

@@ -4,6 +4,7 @@
  * looks up references. Every problem becomes a line-numbered message.
  */
 import { displayUnit, parseUnit, toSI, type InputFieldSpec, type KindSpec, type Quantity, type UnitSystem } from '../solver';
+import { readCsvTable } from './csvTable';
 import type { Assignment, LineIssue, NumberLiteral, ValueNode } from './syntax';
 
 /** The most values a list or range may expand to. */
@@ -16,6 +17,12 @@ export type ReferenceValue =
 
 /** Looks up `block.output` for a reference. */
 export type ReferenceLookup = (block: string, output: string) => ReferenceValue;
+
+/** Reads an attached file a block names (`file "name.csv"`): its text, or why not. */
+export type FileLookup = (name: string) => { ok: true; fileName: string; text: string } | { ok: false; message: string; hint?: string };
+
+/** A lookup for a body evaluated without its files. */
+export const NO_FILE_LOOKUP: FileLookup = (name) => ({ ok: false, message: `No file named "${name}" is attached to this revision.` });
 
 /** Inputs ready for `solve`, the line that gave each field, and the problems found. */
 export interface ResolvedInputs {
@@ -85,13 +92,21 @@ function expandRange(value: Extract<ValueNode, { type: 'range' }>): number[] | s
   return Array.from({ length: n }, (_, i) => from + sign * step * i);
 }
 
-function convert(field: InputFieldSpec, value: ValueNode, system: UnitSystem, lookup: ReferenceLookup): Converted {
+function convert(field: InputFieldSpec, value: ValueNode, system: UnitSystem, lookup: ReferenceLookup, files: FileLookup): Converted {
+  if (value.type === 'file') {
+    if (field.type !== 'table') return { ok: false, message: `${field.label} is not a table, so it cannot be read from a file; only a table input (such as a tailwater rating) can.` };
+    const file = files(value.name);
+    if (!file.ok) return file;
+    const read = readCsvTable(file.text, { fileName: file.fileName, columns: field.columns ?? [], unitSystem: system });
+    if (!read.ok) return read;
+    return { ok: true, value: { ...read.values, source: file.fileName, rowNumbers: read.rowNumbers } };
+  }
   if (value.type === 'reference') {
     const found = lookup(value.block, value.output);
     if (!found.ok) return found;
     if (field.type === 'list' && typeof found.value === 'number' && found.quantity === field.quantity) return { ok: true, value: [found.value] };
     if (field.type === 'list' && Array.isArray(found.value)) return { ok: true, value: found.value };
-    if (field.type === 'choice' && typeof found.value === 'string') return convert(field, { type: 'word', value: found.value }, system, lookup);
+    if (field.type === 'choice' && typeof found.value === 'string') return convert(field, { type: 'word', value: found.value }, system, lookup, files);
     if (typeof found.value === 'number' && found.quantity !== field.quantity) {
       return { ok: false, message: `${value.block}.${value.output} is a ${found.quantity}, but ${field.label} is a ${field.quantity}.` };
     }
@@ -139,7 +154,7 @@ function convert(field: InputFieldSpec, value: ValueNode, system: UnitSystem, lo
       const out: Record<string, number[]> = {};
       for (const [index, head] of value.header.entries()) {
         // A header names its column by name or label, or is matched by the quantity of its unit.
-        const byName = columns.find((c) => c.name.toLowerCase() === head.name.toLowerCase() || c.label.toLowerCase() === head.name.toLowerCase());
+        const byName = columns.find((c) => [c.name, c.label, ...(c.aliases ?? [])].some((n) => n.toLowerCase() === head.name.toLowerCase()));
         const unit = head.unit ? parseUnit(head.unit) : null;
         if (unit && !unit.ok) return { ok: false, message: `Column ${head.name}: ${unit.error.message}` };
         const column = byName ?? (unit?.ok ? columns.find((c) => c.quantity === unit.value.quantity) : undefined);
@@ -157,7 +172,7 @@ function convert(field: InputFieldSpec, value: ValueNode, system: UnitSystem, lo
  * Resolves the assignments of one block against its kind. `units = SI|US` sets the block's
  * unit system: numbers written without a unit are in its display units, and so are results.
  */
-export function resolveInputs(spec: KindSpec, assignments: readonly Assignment[], lookup: ReferenceLookup): ResolvedInputs {
+export function resolveInputs(spec: KindSpec, assignments: readonly Assignment[], lookup: ReferenceLookup, files: FileLookup = NO_FILE_LOOKUP): ResolvedInputs {
   const issues: LineIssue[] = [];
   const inputs: Record<string, unknown> = {};
   const lineOf: Record<string, number> = {};
@@ -187,7 +202,7 @@ export function resolveInputs(spec: KindSpec, assignments: readonly Assignment[]
       continue;
     }
     lineOf[field.name] = a.line;
-    const converted = convert(field, a.value, unitSystem, lookup);
+    const converted = convert(field, a.value, unitSystem, lookup, files);
     if (converted.ok) inputs[field.name] = converted.value;
     else issues.push({ line: a.line, message: converted.message, ...(converted.hint ? { hint: converted.hint } : {}) });
   }

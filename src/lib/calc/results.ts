@@ -37,6 +37,19 @@ export interface BlockWarning {
   readonly line?: number;
 }
 
+/** A table a block was given (a tailwater rating): SI columns, and the file it came from. */
+export interface InputTable {
+  /** The input's field name (`tailwaterRating`). */
+  readonly name: string;
+  readonly label: string;
+  /** The attached file the rows were read from; null for rows written in the block. */
+  readonly source: string | null;
+  /** Each row's number in the file (spreadsheet rows, header = 1); absent for rows in the block. */
+  readonly rowNumbers?: readonly number[];
+  /** SI columns by name, as the solver got them. */
+  readonly columns: Readonly<Record<string, readonly number[]>>;
+}
+
 /** The outcome of one calculation block. */
 export interface BlockResult {
   /** Position of the block in the case, from 0. */
@@ -53,6 +66,8 @@ export interface BlockResult {
   readonly inputs: readonly ShownValue[];
   readonly outputs: readonly ShownValue[];
   readonly table?: { readonly columns: readonly ShownColumn[]; readonly rows: readonly (readonly (number | string | null)[])[]; readonly text: readonly (readonly string[])[] };
+  /** The tables among the inputs (absent when there are none). */
+  readonly tables?: readonly InputTable[];
   readonly warnings: readonly BlockWarning[];
   readonly errors: readonly LineIssue[];
   /** Slug of the method note of the kind (content/methods). */

@@ -60,7 +60,14 @@ export interface TableLiteral {
   readonly rows: readonly { readonly cells: readonly number[]; readonly line: number }[];
 }
 
-export type ValueNode = NumberLiteral | ListLiteral | RangeLiteral | Reference | Word | TableLiteral;
+/** `file "name.csv"`: a file attached to the case, read as a table (a tailwater rating). */
+export interface FileReference {
+  readonly type: 'file';
+  /** The attachment's file name as written. */
+  readonly name: string;
+}
+
+export type ValueNode = NumberLiteral | ListLiteral | RangeLiteral | Reference | Word | TableLiteral | FileReference;
 
 /** `key = value` (or a table under `key:`) on one line of a block. */
 export interface Assignment {

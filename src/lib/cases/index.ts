@@ -31,6 +31,7 @@ export { createCase, type NewCase } from './create';
 export { saveCase, type CaseSave, type SaveCaseResult } from './save';
 export { getCase, listCases, type CaseList, type ListCasesOptions } from './queries';
 export { lockCase } from './rows';
+export { revisionBody, writeRecalculatedRevision } from './recalculate';
 export { getCaseReading, READING_HISTORY_LENGTH, type CaseReading, type HistoryEntry } from './reading';
 export { diffCaseRevisions, getRevision, listRevisions, type RevisionDiff, type RevisionDiffResult } from './revisions';
 export type { CaseDetail, CaseRevisionDetail, CaseSummary, LatestRevisionInfo, RevisionSummary } from './types';

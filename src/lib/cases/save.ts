@@ -1,9 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
-import type { Database } from '../../db/client';
+import type { Database, Queryable } from '../../db/client';
 import { approval, caseFile, caseRevision } from '../../db/schema';
 import { recordAudit } from '../audit';
-import { evaluateCase } from '../calc';
+import { evaluateRevision } from '../attachments/blockFiles';
+import { evaluateCase, filesNamedIn } from '../calc';
 // The pure decision module only (the review barrel carries services that import this one).
 import { afterEdit } from '../review/transitions';
 import { notifyReview } from '../review/notify';
@@ -74,9 +75,22 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
   return result;
 }
 
+/**
+ * Whether the text of revision `base` is still the latest text: revisions written since by
+ * a file change (the same body, recalculated) are no conflict for an editor that started
+ * from `base`.
+ */
+async function sameTextSince(tx: Queryable, firmId: string, caseId: string, base: number, latestBody: string): Promise<boolean> {
+  if (!Number.isInteger(base) || base < 1) return false;
+  const older = await findRevision(tx, firmId, caseId, base);
+  return older !== null && older !== undefined && older.body === latestBody;
+}
+
 async function applySave(database: Database, input: CaseSave): Promise<SaveCaseResult> {
-  // Evaluating is pure CPU: do it before the row lock is taken.
-  const results = input.body !== undefined ? evaluateCase(input.body) : null;
+  // Evaluating is pure CPU: do it before the row lock is taken, unless blocks read attached
+  // files, which are loaded under the lock (a file change also locks the case).
+  const namesFiles = input.body !== undefined && filesNamedIn(input.body).length > 0;
+  let results = input.body !== undefined && !namesFiles ? evaluateCase(input.body) : null;
   return database.transaction(async (tx): Promise<SaveCaseResult> => {
     const current = await lockCase(tx, input.firmId, input.caseId);
     if (!current) return { ok: false, reason: 'not_found' };
@@ -85,9 +99,13 @@ async function applySave(database: Database, input: CaseSave): Promise<SaveCaseR
     if (!next) return { ok: false, reason: 'not_editable' };
     const latest = await findRevision(tx, input.firmId, current.id, current.latestRevision);
     if (!latest) throw new Error(`case ${current.id} has no revision ${current.latestRevision}`);
-    if (input.baseRevision !== current.latestRevision) {
+    if (input.baseRevision !== current.latestRevision && !(await sameTextSince(tx, input.firmId, current.id, input.baseRevision, latest.body))) {
       const { number, body, authorName, createdAt } = latest;
       return { ok: false, reason: 'conflict', latest: { number, body, authorName, createdAt } };
+    }
+    if (namesFiles) {
+      // The new revision (latest + 1) sees the files the revision being worked on sees.
+      results = await evaluateRevision(tx, { firmId: input.firmId, caseId: current.id, revision: current.latestRevision + 1, body: input.body! });
     }
 
     const changes: Partial<typeof caseFile.$inferInsert> = {};
@@ -108,7 +126,13 @@ async function applySave(database: Database, input: CaseSave): Promise<SaveCaseR
     const newBody = bodyChanged
       ? { body: input.body!, results: results! }
       : startedDraft
-        ? { body: latest.body, results: latest.results }
+        ? {
+            body: latest.body,
+            // Files may have changed for the next revision since this one was published.
+            results: filesNamedIn(latest.body).length
+              ? await evaluateRevision(tx, { firmId: input.firmId, caseId: current.id, revision: current.latestRevision + 1, body: latest.body })
+              : latest.results,
+          }
         : null;
     const revisionCreated = newBody !== null;
 

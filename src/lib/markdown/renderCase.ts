@@ -18,7 +18,7 @@ import remarkMath from 'remark-math';
 import remarkParse from 'remark-parse';
 import remarkRehype from 'remark-rehype';
 import { unified } from 'unified';
-import { evaluateCase, type CaseEvaluation } from '../calc';
+import { evaluateCase, NO_FILES, type BlockFiles, type CaseEvaluation } from '../calc';
 import { escapeHtml } from './escapeHtml';
 import { addHeadingIds } from './headingIds';
 import { renderMath } from './renderMath';
@@ -64,10 +64,12 @@ const fallbackHtml = (markdown: string) => `<pre class="whitespace-pre-wrap">${e
  * @example
  * const { segments, evaluation } = renderCase(body);
  * segments.map((s) => (s.type === 'html' ? s.html : evaluation.blocks[s.index]));
+ *
+ * `files` are the attached files the blocks may read (see `evaluateCase`).
  */
-export function renderCase(markdown: string): RenderedCase {
+export function renderCase(markdown: string, files: BlockFiles = NO_FILES): RenderedCase {
   const text = typeof markdown === 'string' ? markdown : '';
-  const evaluation = evaluateCase(text);
+  const evaluation = evaluateCase(text, files);
   const blocks = evaluation.blocks.map((b) => ({ index: b.index, line: b.line }));
   const tree = hastOf(text);
   if (!tree) {

@@ -3,7 +3,7 @@
  *
  * What an approval is compared with never changes within a server process: the published
  * revision's body is immutable (a trigger refuses updates) and today's results depend only
- * on that body and `SOLVER_VERSION`. So the comparison is computed once per approval *row
+ * on that body, the files it reads (fixed with the revision) and `SOLVER_VERSION`. So the comparison is computed once per approval *row
  * version* and solver version, and a case page that shows the drift notice reads neither the
  * snapshot (often the biggest value in the row) nor the body again. The row version is the
  * approval row's `xmin`, which PostgreSQL changes whenever the row is updated (a cancelled
@@ -13,7 +13,8 @@ import { and, eq, inArray, sql } from 'drizzle-orm';
 import { LRUCache } from 'lru-cache';
 import type { Database } from '../../db/client';
 import { approval, caseRevision } from '../../db/schema';
-import { evaluateCase, type CaseEvaluation } from '../calc';
+import { evaluateRevision } from '../attachments/blockFiles';
+import type { CaseEvaluation } from '../calc';
 import { SOLVER_VERSION } from '../solver';
 import { compareEvaluations, type BlockDrift } from './drift';
 
@@ -42,10 +43,10 @@ export const approvalRowVersion = sql<string>`${approval}.xmin::text`;
 const cache = new LRUCache<string, DriftComparison>({ max: MAX_COMPARISONS });
 const keyOf = (v: ApprovalVersion) => `${SOLVER_VERSION}|${v.approvalId}|${v.rowVersion}`;
 
-function compare(snapshot: CaseEvaluation | null, current: () => CaseEvaluation): DriftComparison {
+async function compare(snapshot: CaseEvaluation | null, current: () => Promise<CaseEvaluation>): Promise<DriftComparison> {
   if (!snapshot || !Array.isArray(snapshot.blocks)) return { findings: [], problem: UNREADABLE_SNAPSHOT };
   try {
-    return { findings: compareEvaluations(snapshot, current()) };
+    return { findings: compareEvaluations(snapshot, await current()) };
   } catch {
     return { findings: [], problem: UNREADABLE_SNAPSHOT };
   }
@@ -78,12 +79,16 @@ export async function compareApprovals(
       rowVersion: approvalRowVersion,
       snapshot: approval.snapshot,
       body: sql<string | null>`${current ? sql`null` : caseRevision.body}`,
+      caseId: approval.caseId,
+      revisionNumber: approval.revisionNumber,
     })
     .from(approval)
     .innerJoin(caseRevision, and(eq(caseRevision.caseId, approval.caseId), eq(caseRevision.firmId, approval.firmId), eq(caseRevision.number, approval.revisionNumber)))
     .where(and(eq(approval.firmId, firmId), inArray(approval.id, missing)));
   for (const row of rows) {
-    const comparison = compare(row.snapshot, () => current ?? evaluateCase(row.body ?? ''));
+    const comparison = await compare(row.snapshot, async () =>
+      current ?? evaluateRevision(database, { firmId, caseId: row.caseId, revision: row.revisionNumber, body: row.body ?? '' }),
+    );
     // Keyed by the version just read: if the row changed since the caller looked, this is the newer one.
     cache.set(keyOf(row), comparison);
     out.set(row.approvalId, comparison);

@@ -11,7 +11,7 @@ import type { Database } from '../../db/client';
 import { approval, caseFile, caseRevision, member, reviewComment, reviewRound } from '../../db/schema';
 import { recordAudit } from '../audit';
 import type { Role } from '../auth/roles';
-import { evaluateCase } from '../calc';
+import { evaluateRevision } from '../attachments/blockFiles';
 import { lockCase, type CaseState } from '../cases';
 import { SOLVER_VERSION } from '../solver';
 import { wakeMailWorker } from '../mail';
@@ -135,7 +135,7 @@ function applyReview(database: Database, request: ReviewRequest): Promise<Review
         revisionNumber: current.latestRevision,
         reviewerId: request.actor.userId,
         solverVersion: SOLVER_VERSION,
-        snapshot: evaluateCase(latest?.body ?? ''),
+        snapshot: await evaluateRevision(tx, { firmId: request.firmId, caseId: current.id, revision: current.latestRevision, body: latest?.body ?? '' }),
       });
       await audit('case.approved', { solverVersion: SOLVER_VERSION, approvals: decision.approverIds.length, requiredApprovals });
       if (decision.publishes) {

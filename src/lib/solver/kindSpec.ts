@@ -20,6 +20,10 @@ export interface TableColumnSpec {
   readonly quantity: Quantity;
   /** What the column holds. */
   readonly description: string;
+  /** Other header words that name the column (`TW` for a depth), matched without case. */
+  readonly aliases?: readonly string[];
+  /** The column may be left out (another column stands in for it). */
+  readonly optional?: boolean;
 }
 
 /** Condition on a `choice` field that makes another field applicable. */
@@ -123,7 +127,10 @@ export interface KindSpec {
 }
 
 /** A value given to `solve` for one field (SI numbers). */
-export type InputValue = number | string | readonly number[] | Readonly<Record<string, readonly number[]>>;
+export type InputValue = number | string | readonly number[] | TableValue;
+
+/** A `table` input: SI columns by name, and where its rows came from (for row-numbered messages). */
+export type TableValue = Readonly<Record<string, readonly number[]>> & { readonly source?: string; readonly rowNumbers?: readonly number[] };
 
 /** Validated inputs of one kind: defaults applied, inapplicable fields removed. */
 export type InputValues = Readonly<Record<string, InputValue>>;

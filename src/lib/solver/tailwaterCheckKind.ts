@@ -8,6 +8,7 @@ import { SECTION_SHAPES } from './section';
 import { CONTRACTION_COEFFICIENT_FIELD } from './sluiceGateKind';
 import { DEFAULT_TOE_TOLERANCE, dischargeRange, MAX_FLOWS, solveTailwaterCheck, type TailwaterSource, type ToeMethod } from './tailwaterCheck';
 import { LOSS_COEFFICIENT_FIELD } from './toeDepthKind';
+import type { RatingTable } from './tailwaterRating';
 
 const onToe = (m: string) => ({ field: 'toeMethod', oneOf: [m] });
 const onTw = (m: string) => ({ field: 'tailwaterMethod', oneOf: [m] });
@@ -35,9 +36,11 @@ export const TAILWATER_CHECK_SPEC: KindSpec = {
     { ...CONTRACTION_COEFFICIENT_FIELD, when: onToe('gate') },
     { name: 'tailwaterMethod', label: 'Tailwater from', symbol: 'tailwater', latex: '\\text{tailwater}', type: 'choice', quantity: 'text', required: false, default: 'table', choices: ['table', 'manning'], description: 'table: a rating (discharge, depth) interpolated linearly, never extrapolated; manning: normal depth in the section.' },
     { name: 'tailwaterRating', label: 'Tailwater rating', symbol: 'rating', latex: '\\text{rating}', type: 'table', quantity: 'length', required: true, when: onTw('table'), columns: [
-      { name: 'discharge', label: 'Discharge', quantity: 'discharge', description: 'Discharge, strictly increasing.' },
-      { name: 'depth', label: 'Tailwater depth', quantity: 'length', description: 'Tailwater depth above the apron.' },
-    ], description: 'Tailwater depth above the apron against discharge.' },
+      { name: 'discharge', label: 'Discharge', quantity: 'discharge', description: 'Discharge, strictly increasing.', aliases: ['Q', 'flow'] },
+      { name: 'depth', label: 'Tailwater depth', quantity: 'length', description: 'Tailwater depth above the apron.', aliases: ['TW', 'tailwater', 'y'], optional: true },
+      { name: 'stage', label: 'Stage', quantity: 'length', description: 'Water level above a datum; needs the apron level on the same datum.', aliases: ['level', 'water level', 'WL', 'elevation'], optional: true },
+    ], description: 'Tailwater depth above the apron (or stage, with the apron level) against discharge: rows in the block, or an attached CSV file.' },
+    { name: 'apronLevel', label: 'Apron level', symbol: 'apron', latex: 'z_{apron}', type: 'number', quantity: 'length', required: false, when: onTw('table'), description: 'Level of the apron on the datum of a rating given as stage: depth = stage − apron level.' },
     { name: 'channelShape', label: 'Tailwater channel shape', symbol: 'channel', latex: '\\text{channel}', type: 'choice', quantity: 'text', required: false, default: 'same', choices: ['same', ...SECTION_SHAPES], when: onTw('manning'), description: 'Section of the downstream channel for the normal depth; "same" uses the basin section.' },
     positiveField('channelWidth', 'Tailwater channel width', 'bc', 'b_c', 'length', 'Bottom width of the downstream channel.', { min: 0, exclusiveMin: false, when: { field: 'channelShape', oneOf: ['rectangular', 'trapezoidal'] } }),
     { name: 'channelSideSlope', label: 'Tailwater channel side slope', symbol: 'zc', latex: 'z_c', type: 'number', quantity: 'dimensionless', required: true, min: 0, when: { field: 'channelShape', oneOf: ['trapezoidal', 'triangular'] }, description: 'Side slope (H:V) of the downstream channel.' },
@@ -77,6 +80,40 @@ function channelSection(v: InputValues) {
   return { section: sectionFromValues({ shape, width: v['channelWidth'] as number, sideSlope: v['channelSideSlope'] as number, diameter: v['channelDiameter'] as number }) };
 }
 
+/** A rating as the block gives it: depths above the apron, or stages on a datum. */
+interface RatingInput {
+  readonly discharge: readonly number[];
+  readonly depth?: readonly number[];
+  readonly stage?: readonly number[];
+  readonly source?: string;
+  readonly rowNumbers?: readonly number[];
+}
+
+/** The rating as depths above the apron: a stage column less the apron level. */
+export function ratingDepths(rating: RatingInput, apronLevel: number | undefined): SolverResult<RatingTable> {
+  const { discharge, depth, stage, source, rowNumbers } = rating;
+  const meta = { ...(source !== undefined ? { source } : {}), ...(rowNumbers !== undefined ? { rowNumbers } : {}) };
+  const bad = (message: string) => ({ ok: false as const, error: { code: 'invalid-input' as const, message, field: 'tailwaterRating' } });
+  if (depth && stage) return bad('The tailwater rating gives both depth and stage: keep one column.');
+  if (depth) {
+    if (apronLevel !== undefined) return { ok: false, error: { code: 'invalid-input', message: 'The apron level turns stages into depths, but this rating already gives depths: leave the apron level out.', field: 'apronLevel' } };
+    return { ok: true, value: { discharge, depth, ...meta }, warnings: [] };
+  }
+  if (!stage) return bad('The tailwater rating needs a depth column (above the apron) or a stage column (a level, with the apron level).');
+  if (apronLevel === undefined || !Number.isFinite(apronLevel)) {
+    return { ok: false, error: { code: 'invalid-input', message: 'The rating gives stages (water levels): give the apron level on the same datum, so that depth = stage − apron level.', field: 'apronLevel' } };
+  }
+  const label = source ?? 'Rating';
+  for (let i = 0; i < stage.length; i++) {
+    if (!(stage[i]! > apronLevel)) {
+      return bad(`${label} row ${rowNumbers?.[i] ?? i + 1}: stage ${formatLevel(stage[i]!)} m is not above the apron level ${formatLevel(apronLevel)} m, so there is no tailwater depth there.`);
+    }
+  }
+  return { ok: true, value: { discharge, depth: stage.map((s) => s - apronLevel), ...meta }, warnings: [] };
+}
+
+const formatLevel = (x: number) => (Math.round(x * 1000) / 1000).toString();
+
 /** Runs the kind on validated values. */
 export function runTailwaterCheck(v: InputValues): SolverResult<SolveOutput> {
   let discharges = v['discharges'] as readonly number[] | undefined;
@@ -92,10 +129,15 @@ export function runTailwaterCheck(v: InputValues): SolverResult<SolveOutput> {
     v['toeMethod'] === 'depth' ? { method: 'depth', y1: v['y1'] as number }
     : v['toeMethod'] === 'gate' ? { method: 'gate', opening: v['gateOpening'] as number, contractionCoefficient: v['contractionCoefficient'] as number }
     : { method: 'head', head: v['head'] as number, lossCoefficient: v['lossCoefficient'] as number };
-  const rating = v['tailwaterRating'] as { discharge: readonly number[]; depth: readonly number[] } | undefined;
-  const tailwater: TailwaterSource = v['tailwaterMethod'] === 'manning' || rating === undefined
-    ? { method: 'manning', n: v['manningN'] as number, slope: v['bedSlope'] as number, ...channelSection(v) }
-    : { method: 'table', discharge: rating.discharge, depth: rating.depth };
+  const given = v['tailwaterRating'] as RatingInput | undefined;
+  let tailwater: TailwaterSource;
+  if (v['tailwaterMethod'] === 'manning' || given === undefined) {
+    tailwater = { method: 'manning', n: v['manningN'] as number, slope: v['bedSlope'] as number, ...channelSection(v) };
+  } else {
+    const rating = ratingDepths(given, v['apronLevel'] as number | undefined);
+    if (!rating.ok) return rating;
+    tailwater = { method: 'table', ...rating.value };
+  }
   const r = solveTailwaterCheck({ section: sectionFromValues(v), discharges, toe, tailwater, tolerance: v['tolerance'] as number, g: v['g'] as number });
   if (!r.ok) return r;
   const { rows, ...values } = r.value;

@@ -10,12 +10,18 @@ export interface RatingTable {
   readonly discharge: readonly number[];
   /** Tailwater depths above the apron, m, one per discharge. */
   readonly depth: readonly number[];
+  /** Where the rows came from (a file name), for messages; default "Rating". */
+  readonly source?: string;
+  /** The row number of each row in its source (a spreadsheet row), for messages; default 1, 2, … */
+  readonly rowNumbers?: readonly number[];
 }
 
 /** Checks a rating table; returns a failure naming the field, or `null`. */
 export function validateRatingTable(table: unknown, field = 'tailwaterRating'): SolverFailure | null {
   if (typeof table !== 'object' || table === null) return fail('invalid-input', 'A tailwater rating table (discharge, depth) is required.', field);
-  const { discharge, depth } = table as Record<string, unknown>;
+  const { discharge, depth, source, rowNumbers } = table as Record<string, unknown>;
+  const label = typeof source === 'string' && source ? source : 'Rating';
+  const rowOf = (i: number) => (Array.isArray(rowNumbers) && typeof rowNumbers[i] === 'number' ? rowNumbers[i] : i + 1);
   if (!Array.isArray(discharge) || !Array.isArray(depth) || discharge.length !== depth.length) {
     return fail('invalid-input', 'The tailwater rating needs two columns, discharge and depth, of equal length.', field);
   }
@@ -23,9 +29,9 @@ export function validateRatingTable(table: unknown, field = 'tailwaterRating'): 
   for (let i = 0; i < discharge.length; i++) {
     const q = discharge[i];
     const y = depth[i];
-    if (typeof q !== 'number' || !Number.isFinite(q) || q < 0) return fail('invalid-input', `Rating row ${i + 1}: discharge must be a finite number ≥ 0.`, field);
-    if (typeof y !== 'number' || !Number.isFinite(y) || y <= 0) return fail('invalid-input', `Rating row ${i + 1}: depth must be a finite number > 0.`, field);
-    if (i > 0 && !(q > (discharge[i - 1] as number))) return fail('invalid-input', `Rating row ${i + 1}: discharges must increase strictly from row to row.`, field);
+    if (typeof q !== 'number' || !Number.isFinite(q) || q < 0) return fail('invalid-input', `${label} row ${rowOf(i)}: discharge must be a finite number ≥ 0.`, field);
+    if (typeof y !== 'number' || !Number.isFinite(y) || y <= 0) return fail('invalid-input', `${label} row ${rowOf(i)}: depth must be a finite number > 0.`, field);
+    if (i > 0 && !(q > (discharge[i - 1] as number))) return fail('invalid-input', `${label} row ${rowOf(i)}: discharges must increase strictly from row to row.`, field);
   }
   return null;
 }

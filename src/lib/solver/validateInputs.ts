@@ -3,7 +3,7 @@
  * choices, conditional fields and alternative-input groups, with defaults applied.
  * No exceptions: every problem is a failure naming the field.
  */
-import type { InputFieldSpec, InputValue, InputValues, KindSpec } from './kindSpec';
+import type { InputFieldSpec, InputValue, InputValues, KindSpec, TableValue } from './kindSpec';
 import { fail, type SolverFailure, type SolverResult, type Warning } from './result';
 import { describeValue } from './validate';
 
@@ -99,6 +99,7 @@ function checkValue(field: InputFieldSpec, raw: unknown): InputValue | SolverFai
       let length = -1;
       for (const col of field.columns ?? []) {
         const values = t[col.name];
+        if (values === undefined && col.optional) continue;
         if (!Array.isArray(values) || (length >= 0 && values.length !== length)) {
           return fail('invalid-input', `${where} needs a column "${col.name}" of the same length as the others.`, field.name);
         }
@@ -108,7 +109,11 @@ function checkValue(field: InputFieldSpec, raw: unknown): InputValue | SolverFai
         }
         out[col.name] = values as number[];
       }
-      return out;
+      // Where the rows came from travels with them, for row-numbered messages.
+      const meta: { source?: string; rowNumbers?: readonly number[] } = {};
+      if (typeof t['source'] === 'string') meta.source = t['source'];
+      if (Array.isArray(t['rowNumbers']) && t['rowNumbers'].length === length && t['rowNumbers'].every((n) => Number.isInteger(n))) meta.rowNumbers = t['rowNumbers'] as number[];
+      return { ...out, ...meta } as TableValue;
     }
   }
 }

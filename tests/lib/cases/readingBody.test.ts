@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { readingBody, readingChunks, renderReadingBody } from '@/components/cases/readingBody';
+import { NO_FILES } from '@/lib/calc';
 import { CASE } from '../charts/fixtures';
 
 const BODY = `# Basin check\n\nThe jump: $Fr_1 = V_1/\\sqrt{g y_1}$.\n\n${CASE}\n\nAfter the blocks <script>alert(1)</script>.`;
@@ -61,9 +62,30 @@ describe('readingChunks', () => {
 });
 
 describe('readingBody', () => {
-  it('renders a revision once and answers the same object afterwards', () => {
-    const first = readingBody('case-1#1', BODY);
-    expect(readingBody('case-1#1', BODY)).toBe(first);
-    expect(readingBody('case-1#2', BODY)).not.toBe(first);
+  it('renders a revision once and answers the same object afterwards', async () => {
+    const noFiles = async () => NO_FILES;
+    const first = await readingBody('case-1#1', BODY, noFiles);
+    expect(await readingBody('case-1#1', BODY, noFiles)).toBe(first);
+    expect(await readingBody('case-1#2', BODY, noFiles)).not.toBe(first);
+  });
+
+  it('loads the files only for a body whose blocks read one, and once per revision', async () => {
+    let loads = 0;
+    const loadFiles = async () => {
+      loads += 1;
+      return { names: ['tw.csv'], texts: { 'tw.csv': 'Q (m3/s),TW (m)\n10,1.2\n50,2.4\n' } };
+    };
+    await readingBody('case-2#1', BODY, loadFiles);
+    expect(loads).toBe(0);
+    const withFile = ['```tailwater tw', 'b = 5 m', 'Q = 20, 40 m3/s', 'toe = depth', 'y1 = 0.4 m', 'rating = file "tw.csv"', '```', ''].join('\n');
+    const first = await readingBody('case-3#1', withFile, loadFiles);
+    await readingBody('case-3#1', withFile, loadFiles);
+    expect(loads).toBe(1);
+    const block = first.evaluation.blocks[0]!;
+    expect(block.errors).toEqual([]);
+    expect(block.tables?.[0]?.source).toBe('tw.csv');
+    // The what-if island gets the file text its block reads.
+    const island = first.chunks.find((c) => c.type === 'island');
+    expect(island && JSON.parse(island.payload).files.texts['tw.csv']).toContain('Q (m3/s)');
   });
 });

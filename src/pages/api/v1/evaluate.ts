@@ -1,13 +1,28 @@
 import type { APIRoute } from 'astro';
-import { EvaluateRequestSchema, evaluateCase } from '../../../lib/calc';
+import { db } from '../../../db/client';
+import { listAttachments } from '../../../lib/attachments';
+import { loadBlockFiles } from '../../../lib/attachments/blockFiles';
+import { EvaluateRequestSchema, evaluateCase, filesNamedIn, NO_FILES } from '../../../lib/calc';
 import { DESIGN_AID_CAUTION } from '../../../lib/caution';
 import { json, parseJsonBody, requireMember } from '../../../lib/http';
+import { caseNotFound } from './cases/_shared';
 
-/** A markdown case body → the results (or line-numbered errors) of each calculation block. */
+/**
+ * A markdown case body → the results (or line-numbered errors) of each calculation block.
+ * With `caseId`, blocks read that case's attached files (`rating = file "…"`).
+ */
 export const POST: APIRoute = async (context) => {
   const caller = requireMember(context);
   if (caller instanceof Response) return caller;
   const body = await parseJsonBody(context.request, EvaluateRequestSchema);
   if (!body.ok) return body.response;
-  return json({ ...evaluateCase(body.data.markdown), caution: DESIGN_AID_CAUTION });
+  const { markdown, caseId } = body.data;
+  let files = NO_FILES;
+  if (caseId !== undefined) {
+    const firmId = caller.firm.firm.id;
+    const listed = await listAttachments(db(), firmId, caseId);
+    if (!listed) return caseNotFound();
+    files = await loadBlockFiles(db(), { firmId, caseId, revision: listed.revision, wanted: filesNamedIn(markdown) });
+  }
+  return json({ ...evaluateCase(markdown, files), caution: DESIGN_AID_CAUTION });
 };
