@@ -83,10 +83,70 @@ function harrowgateSketch(): string {
 </svg>`;
 }
 
+/** Long section of the Kilnbarrow Lane culvert outlet and its depressed apron (case 02). */
+function kilnbarrowSketch(): string {
+  // Levels relative to the beck bed (0 m), 90 px a metre.
+  const ky = (level: number) => 430 - level * 90;
+  const outlet = 430;
+  const apronEnd = 900;
+  const rampEnd = 1010;
+  const font = 'font-family="DejaVu Sans, Liberation Sans, sans-serif"';
+  return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}">
+  <defs>
+    <pattern id="hatch" width="10" height="10" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+      <line x1="0" y1="0" x2="0" y2="10" stroke="#9a958a" stroke-width="1.2"/>
+    </pattern>
+    <marker id="arrow" markerWidth="10" markerHeight="10" refX="9" refY="5" orient="auto-start-reverse">
+      <path d="M0,0 L10,5 L0,10 z" fill="#222"/>
+    </marker>
+  </defs>
+  <rect width="${W}" height="${H}" fill="#fbfaf6"/>
+  <g ${font} fill="#222">
+    ${text(40, 52, 'Kilnbarrow Lane culvert — outlet apron sketch (demo)', 'font-size="30" font-weight="bold"')}
+    ${text(40, 84, 'Long section on the centre line, design flow 14.0 m³/s · levels from the beck bed · not to scale', 'font-size="17" fill="#555"')}
+  </g>
+  <!-- water: barrel flow, jump, tailwater -->
+  <path d="M40,${ky(1.4)} L${outlet},${ky(0.4)} L${outlet + 60},${ky(-0.2)}
+           C${outlet + 150},${ky(-0.15)} ${outlet + 190},${ky(1.6)} ${outlet + 300},${ky(1.68)}
+           L1180,${ky(1.68)} L1180,${ky(0)} L${rampEnd},${ky(0)} L${apronEnd},${ky(-0.6)} L${outlet},${ky(-0.6)} L${outlet},${ky(0)} L40,${ky(1.0)} Z" fill="#9fc3e0" fill-opacity="0.85"/>
+  <!-- barrel: soffit and invert -->
+  <path d="M40,${ky(2.6)} L${outlet},${ky(1.6)}" stroke="#222" stroke-width="4" fill="none"/>
+  <path d="M40,${ky(1.0)} L${outlet},${ky(0)} L${outlet},${ky(-0.6)} L${apronEnd},${ky(-0.6)} L${rampEnd},${ky(0)} L1180,${ky(0)} L1180,${ky(-2)} L40,${ky(-2)} Z" fill="url(#hatch)" stroke="#222" stroke-width="3"/>
+  <rect x="${outlet - 6}" y="${ky(2.6)}" width="12" height="${ky(1.6) - ky(2.6)}" fill="#777"/>
+  <g fill="none" stroke="#2d5f8a" stroke-width="2.5">
+    <path d="M${outlet + 90},${ky(0.2)} q30,-60 70,-40 q25,15 5,40"/>
+    <path d="M${outlet + 150},${ky(0.9)} q30,-50 65,-35 q20,12 5,35"/>
+  </g>
+  <g ${font} font-size="16" fill="#222">
+    ${text(90, ky(2.85), 'Box culvert 3.0 m wide at 4 %', 'transform="rotate(12 90 ${ky(2.85)})"')}
+    ${text(outlet - 330, ky(0.05), 'Outlet: y₁ = 0.40 m, Fr₁ ≈ 5.3', 'font-size="15"')}
+    ${text(outlet + 120, ky(2.6), 'Hydraulic jump, y₂ ≈ 2.2 m')}
+    ${text(outlet + 330, ky(1.68) - 12, 'Tailwater: normal depth of the beck ≈ 1.68 m')}
+    ${text(outlet + 60, ky(-0.6) + 32, 'Apron 0.60 m below the bed · 3.0 m base, 1.5H:1V sides', 'font-weight="bold" font-size="15"')}
+    ${text(apronEnd - 10, ky(-0.3) - 8, '1:4 ramp', 'font-size="14"')}
+    ${text(rampEnd + 20, ky(0) + 30, 'Rock protection', 'font-size="14" fill="#555"')}
+    ${text(1030, ky(1.0), 'Tarrowby Beck', 'font-style="italic" fill="#2d5f8a"')}
+  </g>
+  <g stroke="#222" stroke-width="1.5">
+    <line x1="${outlet}" y1="${ky(-0.6) + 75}" x2="${apronEnd}" y2="${ky(-0.6) + 75}" marker-start="url(#arrow)" marker-end="url(#arrow)"/>
+    <line x1="${outlet}" y1="${ky(-0.6) + 60}" x2="${outlet}" y2="${ky(-0.6) + 90}"/>
+    <line x1="${apronEnd}" y1="${ky(-0.6) + 60}" x2="${apronEnd}" y2="${ky(-0.6) + 90}"/>
+  </g>
+  <g ${font} fill="#222">
+    ${text(outlet + 110, ky(-0.6) + 100, 'Concrete apron and side lining 18 m (about 8 y₂)', 'font-size="15"')}
+    ${text(40, H - 22, 'Kestrel Weir Consulting · KWC-2304 · invented demo data, not a construction drawing', 'font-size="14" fill="#777"')}
+  </g>
+</svg>`;
+}
+
 async function draw(name: string, svg: string): Promise<void> {
-  const png = await sharp(Buffer.from(svg)).png({ palette: true, colours: 64, compressionLevel: 9, effort: 10 }).toBuffer();
-  writeFileSync(path.join(FILES, name), png);
-  console.log(`${name}: ${png.byteLength} bytes`);
+  const image = sharp(Buffer.from(svg));
+  const bytes = name.endsWith('.jpg')
+    ? await image.jpeg({ quality: 82, mozjpeg: true }).toBuffer()
+    : await image.png({ palette: true, colours: 64, compressionLevel: 9, effort: 10 }).toBuffer();
+  writeFileSync(path.join(FILES, name), bytes);
+  console.log(`${name}: ${bytes.byteLength} bytes`);
 }
 
 await draw('harrowgate-basin-sketch.png', harrowgateSketch());
+await draw('kilnbarrow-outlet-sketch.jpg', kilnbarrowSketch());

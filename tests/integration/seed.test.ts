@@ -72,6 +72,17 @@ describe('demo attachments', () => {
     expect(await seedDemo(db(), hashPassword)).toEqual({ people: 0, cases: 0 });
     const after = await db().select({ id: attachment.id }).from(attachment).where(eq(attachment.firmId, firmId));
     expect(after.length).toBe(before.length);
-    expect(after.length).toBe(2);
+    expect(after.length).toBe(3);
+  });
+
+  it('case 02 publishes its outlet sketch (a JPEG)', async () => {
+    const [found] = await db()
+      .select({ id: caseFile.id, publishedRevision: caseFile.publishedRevision })
+      .from(caseFile)
+      .where(and(eq(caseFile.firmId, firmId), eq(caseFile.title, 'Kilnbarrow Lane culvert — outlet jump into the trapezoidal Tarrowby Beck channel')));
+    const files = await attachmentsOfRevision(db(), firmId, found!.id, found!.publishedRevision!);
+    expect(files.map((f) => [f.fileName, f.contentType, f.sha256, f.uploaderName])).toEqual([
+      ['kilnbarrow-outlet-sketch.jpg', 'image/jpeg', sha(committed('kilnbarrow-outlet-sketch.jpg')), 'Priya Odunya'],
+    ]);
   });
 });

@@ -141,6 +141,16 @@ describe('demo cases in content/cases', () => {
     expect(byType('spillway-basin')[0]!.meta['attachments']).toEqual(['harrowgate-tailwater-rating.csv', 'harrowgate-basin-sketch.png']);
   });
 
+  it('case 1\'s attached rating CSV is the rating of its tailwater block, as stage above the 96.50 m AOD apron', () => {
+    const [c] = byType('spillway-basin');
+    const block = /```tailwater existing[\s\S]*?rating:\n  Q m3\/s \| TW m\n((?:  .*\n)+)```/.exec(c!.body);
+    const fromBlock = block![1]!.trim().split('\n').map((l) => l.split('|').map((v) => Number(v.trim())));
+    const [comment, header, ...rows] = readFileSync(join(DIR, 'files', 'harrowgate-tailwater-rating.csv'), 'utf8').trimEnd().split('\n');
+    expect(comment).toMatch(/^# .*invented demo data/);
+    expect(header).toBe('Q (m3/s),stage (m AOD)');
+    expect(rows.map((r) => r.split(',').map(Number)).map(([q, stage]) => [q, Math.round((stage! - 96.5) * 100) / 100])).toEqual(fromBlock);
+  });
+
   it('case 1 (spillway basin) chains toe → jump → tailwater with a steady design jump', () => {
     const [c] = byType('spillway-basin');
     const words = c!.blocks.map((b) => b.word);
