@@ -1,8 +1,10 @@
 /**
  * The demo cases in content/cases/*.md (invented scenario): frontmatter with the case's
  * metadata and its author's e-mail, then the markdown body. Read by the seed script.
+ * Files a case carries are named by its `attachments: [a.csv, b.png]` line; they live in
+ * content/cases/files/, with their captions in content/cases/files/captions.json.
  */
-import { readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -22,6 +24,14 @@ export interface DemoCase {
   body: string;
   /** Where the seed leaves the case in review (absent: a draft). */
   review?: DemoReview;
+  /** Files the seed attaches to the first revision, before any review (so a published revision keeps them). */
+  attachments: DemoAttachment[];
+}
+
+/** A demo file in content/cases/files/ and its caption. */
+export interface DemoAttachment {
+  fileName: string;
+  caption: string;
 }
 
 /** A demo case's review, as the frontmatter's `review`, `reviewer` and `reviewComment` say. */
@@ -37,8 +47,14 @@ const REVIEW_STATES = ['in_review', 'returned', 'published'] as const;
 
 export const demoCasesFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../content/cases');
 
+/** The subfolder of the demo cases' files (not markdown, so never read as a case). */
+export const DEMO_FILES_SUBFOLDER = 'files';
+
+/** Captions of the demo files, by file name (`files/captions.json`). */
+export type DemoCaptions = Readonly<Record<string, string>>;
+
 /** Splits `---` frontmatter (flat `key: value` lines, `[a, b]` lists) from the body. */
-export function parseDemoCase(file: string, text: string): DemoCase {
+export function parseDemoCase(file: string, text: string, captions: DemoCaptions = {}): DemoCase {
   const match = /^---\r?\n([\s\S]*?)\r?\n---\r?\n?([\s\S]*)$/.exec(text);
   if (!match) throw new Error(`${file}: no frontmatter`);
   const fields: Record<string, string> = {};
@@ -50,7 +66,12 @@ export function parseDemoCase(file: string, text: string): DemoCase {
     if (!fields[key]) throw new Error(`${file}: frontmatter needs ${key}`);
     return fields[key]!;
   };
-  const tags = (fields.tags ?? '').replace(/^\[|\]$/g, '').split(',').map((t) => t.trim()).filter(Boolean);
+  const list = (value: string | undefined) => (value ?? '').replace(/^\[|\]$/g, '').split(',').map((t) => t.trim()).filter(Boolean);
+  const tags = list(fields.tags);
+  const attachments = list(fields.attachments).map((fileName) => {
+    if (!/^[A-Za-z0-9][A-Za-z0-9._-]*$/.test(fileName)) throw new Error(`${file}: attachment ${fileName} must be a plain file name in ${DEMO_FILES_SUBFOLDER}/`);
+    return { fileName, caption: captions[fileName] ?? '' };
+  });
   return {
     file,
     authorEmail: need('author'),
@@ -65,6 +86,7 @@ export function parseDemoCase(file: string, text: string): DemoCase {
     },
     body: match[2]!.replace(/^\s+/, ''),
     ...(fields.review ? { review: demoReview(file, fields) } : {}),
+    attachments,
   };
 }
 
@@ -76,10 +98,19 @@ function demoReview(file: string, fields: Record<string, string>): DemoReview {
   return { state, ...(fields.reviewer ? { reviewerEmail: fields.reviewer } : {}), ...(fields.reviewComment ? { comment: fields.reviewComment } : {}) };
 }
 
-/** Every demo case, in file-name order. */
+/** Every demo case, in file-name order (only `*.md` files of the folder itself). */
 export function readDemoCases(folder = demoCasesFolder): DemoCase[] {
+  const captionsFile = path.join(folder, DEMO_FILES_SUBFOLDER, 'captions.json');
+  const captions: DemoCaptions = existsSync(captionsFile) ? JSON.parse(readFileSync(captionsFile, 'utf8')) : {};
   return readdirSync(folder)
     .filter((f) => f.endsWith('.md'))
     .sort()
-    .map((f) => parseDemoCase(f, readFileSync(path.join(folder, f), 'utf8')));
+    .map((f) => parseDemoCase(f, readFileSync(path.join(folder, f), 'utf8'), captions));
+}
+
+/** The bytes of a demo file named by a case's `attachments` line. */
+export function readDemoFile(fileName: string, folder = demoCasesFolder): Uint8Array {
+  const where = path.join(folder, DEMO_FILES_SUBFOLDER, fileName);
+  if (!existsSync(where)) throw new Error(`demo file ${DEMO_FILES_SUBFOLDER}/${fileName} is missing`);
+  return new Uint8Array(readFileSync(where));
 }

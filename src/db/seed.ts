@@ -4,13 +4,15 @@
  * Safe to run again: existing firms and people are left as they are.
  */
 import { and, eq } from 'drizzle-orm';
+import { addAttachments, CaptionSchema, checkUpload } from '../lib/attachments';
 import type { Role } from '../lib/auth/roles';
 import { createCase } from '../lib/cases/create';
 import { CaseMetadataSchema } from '../lib/cases/validation';
 import { addMember, ensureFirm, type HashPassword } from '../lib/firms';
 import type { Database } from './client';
-import { readDemoCases, type DemoCase } from './demoCases';
+import { readDemoCases, readDemoFile, type DemoCase } from './demoCases';
 import { actOnCase, type ReviewRequest } from '../lib/review';
+import { fileStore } from '../lib/storage';
 import { caseFile, user } from './schema';
 
 /** The shared password of every demo account (printed by `npm start`, listed in the README). */
@@ -56,6 +58,20 @@ export interface SeedReport {
   cases: number;
 }
 
+/**
+ * Attaches a demo case's files (content/cases/files/) to its first revision, as its author
+ * would upload them: the same checks (`checkUpload`) and service, one file per call so each
+ * keeps its own caption. Runs before the review, so a published revision shows them.
+ */
+async function seedAttachments(database: Database, firmId: string, caseId: string, authorId: string, demo: DemoCase): Promise<void> {
+  for (const { fileName, caption } of demo.attachments) {
+    const checked = await checkUpload(fileName, readDemoFile(fileName));
+    if (!checked.ok) throw new Error(`${demo.file}: ${checked.refused.message}`);
+    const added = await addAttachments(database, fileStore(), { firmId, caseId, userId: authorId, files: [checked.file], caption: CaptionSchema.parse(caption) });
+    if (!added.ok) throw new Error(`${demo.file}: attaching ${fileName} refused (${added.reason})`);
+  }
+}
+
 /** Takes a demo case through review as its frontmatter says, with the real transitions. */
 async function seedReview(database: Database, firmId: string, caseId: string, authorId: string, demo: DemoCase): Promise<void> {
   const review = demo.review!;
@@ -73,7 +89,8 @@ async function seedReview(database: Database, firmId: string, caseId: string, au
 
 /**
  * Creates the demo firms, people and cases that do not exist yet (cases are matched by
- * title within the first demo firm, so edits made in the demo are kept).
+ * title within the first demo firm, so edits made in the demo are kept). A new case gets
+ * its demo files; a case that exists is never given them again.
  */
 export async function seedDemo(database: Database, hashPassword: HashPassword): Promise<SeedReport> {
   let added = 0;
@@ -109,6 +126,7 @@ export async function seedDemo(database: Database, hashPassword: HashPassword): 
       if (!author) throw new Error(`${demo.file}: no demo account ${demo.authorEmail}`);
       const metadata = CaseMetadataSchema.parse(demo.metadata);
       const created = await createCase(database, { firmId: firstFirmId, authorId: author.id, metadata, body: demo.body });
+      await seedAttachments(database, firstFirmId, created.id, author.id, demo);
       if (demo.review) await seedReview(database, firstFirmId, created.id, author.id, demo);
       cases += 1;
     }

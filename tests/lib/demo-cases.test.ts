@@ -2,11 +2,12 @@
  * The demo cases in content/cases: frontmatter keys and allowed values, and every
  * calculation block evaluates without errors on the shared solver.
  */
-import { readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { evaluateCase } from '../../src/lib/calc';
 import type { BlockResult } from '../../src/lib/calc';
+import { readDemoCases } from '../../src/db/demoCases';
 
 const DIR = join(process.cwd(), 'content', 'cases');
 
@@ -14,6 +15,8 @@ const KEYS = ['title', 'author', 'structureType', 'sectionShape', 'projectRefere
 const AUTHORS = ['tomas.ilvar@kestrelweir.example', 'priya.odunya@kestrelweir.example'];
 /** Optional: where the seed leaves the case in review (see src/db/demoCases.ts). */
 const REVIEW_KEYS = ['review', 'reviewer', 'reviewComment'];
+/** Optional: files the seed attaches, named in content/cases/files/ (captions in its captions.json). */
+const FILE_KEYS = ['attachments'];
 const REVIEWERS = ['helena.brandt@kestrelweir.example', 'josef.warrick@kestrelweir.example'];
 const STRUCTURE_TYPES = ['spillway-basin', 'chute-outlet', 'culvert-outlet', 'outfall', 'drop-structure', 'gate-tailwater', 'weir-tailwater', 'canal-surge', 'tidal-bore', 'dam-break', 'other'];
 const SECTION_SHAPES = ['rectangular', 'trapezoidal', 'triangular', 'circular', 'mixed'];
@@ -77,7 +80,7 @@ describe('demo cases in content/cases', () => {
   describe.each(cases.map((c) => [c.file, c] as const))('%s', (_file, c) => {
     it('has exactly the frontmatter keys, with allowed values', () => {
       const reviewKeys = Object.keys(c.meta).filter((k) => REVIEW_KEYS.includes(k));
-      expect(Object.keys(c.meta).filter((k) => !REVIEW_KEYS.includes(k)).sort()).toEqual([...KEYS].sort());
+      expect(Object.keys(c.meta).filter((k) => !REVIEW_KEYS.includes(k) && !FILE_KEYS.includes(k)).sort()).toEqual([...KEYS].sort());
       if (reviewKeys.length) {
         expect(['in_review', 'returned', 'published']).toContain(c.meta.review);
         if (c.meta.reviewer !== undefined) expect(REVIEWERS).toContain(c.meta.reviewer);
@@ -121,6 +124,31 @@ describe('demo cases in content/cases', () => {
       expect(c.body).toMatch(/licensed engineer/);
       expect(c.body).toMatch(/physical model stud/);
     });
+  });
+
+  it('name only files that exist in content/cases/files, each with a caption, and the seed reads them the same way', () => {
+    const captions = JSON.parse(readFileSync(join(DIR, 'files', 'captions.json'), 'utf8')) as Record<string, string>;
+    const seeded = readDemoCases();
+    for (const c of cases) {
+      const named = (c.meta['attachments'] ?? []) as string[];
+      expect(Array.isArray(named)).toBe(true);
+      for (const name of named) {
+        expect(existsSync(join(DIR, 'files', name)), name).toBe(true);
+        expect(captions[name], name).toMatch(/\w/);
+      }
+      expect(seeded.find((s) => s.file === c.file)!.attachments).toEqual(named.map((fileName) => ({ fileName, caption: captions[fileName] })));
+    }
+    expect(byType('spillway-basin')[0]!.meta['attachments']).toEqual(['harrowgate-tailwater-rating.csv', 'harrowgate-basin-sketch.png']);
+  });
+
+  it('case 1\'s attached rating CSV is the rating of its tailwater block, as stage above the 96.50 m AOD apron', () => {
+    const [c] = byType('spillway-basin');
+    const block = /```tailwater existing[\s\S]*?rating:\n  Q m3\/s \| TW m\n((?:  .*\n)+)```/.exec(c!.body);
+    const fromBlock = block![1]!.trim().split('\n').map((l) => l.split('|').map((v) => Number(v.trim())));
+    const [comment, header, ...rows] = readFileSync(join(DIR, 'files', 'harrowgate-tailwater-rating.csv'), 'utf8').trimEnd().split('\n');
+    expect(comment).toMatch(/^# .*invented demo data/);
+    expect(header).toBe('Q (m3/s),stage (m AOD)');
+    expect(rows.map((r) => r.split(',').map(Number)).map(([q, stage]) => [q, Math.round((stage! - 96.5) * 100) / 100])).toEqual(fromBlock);
   });
 
   it('case 1 (spillway basin) chains toe → jump → tailwater with a steady design jump', () => {

@@ -3,6 +3,7 @@
  * formula-guarded through the audit trail's `csvRow`) and the whole case as JSON. Pure:
  * the routes gather the facts and send the text.
  */
+import type { AttachmentView } from '../attachments';
 import { csvRow } from '../audit';
 import type { BlockResult, CaseEvaluation, ShownValue } from '../calc/results';
 import { DESIGN_AID_CAUTION } from '../caution';
@@ -44,13 +45,37 @@ function blockRows(block: BlockResult): unknown[][] {
   return rows;
 }
 
+/**
+ * One row per file of the revision, in the block columns: block title = caption, block
+ * name = uploaded by, kind = detected type, section `attachment`, row = 1, 2, …, name =
+ * file name, symbol `sha256`, value = the SHA-256 (hex), SI value = the size in bytes.
+ */
+function attachmentRows(attachments: readonly AttachmentView[]): unknown[][] {
+  return attachments.map((a, i) => ['', a.caption, a.uploaderName, a.contentType, 'attachment', i + 1, a.fileName, 'sha256', a.sha256, '', a.size]);
+}
+
+/** The files of the exported revision as the JSON export lists them. */
+export function attachmentsJson(attachments: readonly AttachmentView[]) {
+  return attachments.map((a) => ({
+    fileName: a.fileName,
+    contentType: a.contentType,
+    size: a.size,
+    sha256: a.sha256,
+    caption: a.caption,
+    uploadedBy: a.uploaderName,
+    addedInRevision: a.addedInRevision,
+    url: a.url,
+  }));
+}
+
 /** The file name of an export or sheet of revision `revision` of the case `slug`. */
 export const exportFileName = (slug: string, revision: number, extension: string) => `${slug}-rev${revision}.${extension}`;
 
 /**
  * The CSV text: two comment rows (what the file is with the caution; the case, firm, project,
  * revision and solver, each value in its own guarded cell), the header, then one row
- * per input, result and table cell of every block, in block order.
+ * per input, result and table cell of every block, in block order, then one `attachment` row
+ * per file of the revision (see {@link attachmentRows}).
  */
 export function caseCsv({ firmName, sheet, evaluation }: ExportFacts): string {
   const { case: found, revision } = sheet;
@@ -58,6 +83,7 @@ export function caseCsv({ firmName, sheet, evaluation }: ExportFacts): string {
   text += csvRow(['# case', found.title, 'firm', firmName, 'project', found.projectReference ?? '', 'revision', revision.number, 'solver', evaluation.solverVersion]);
   text += csvRow(CSV_COLUMNS);
   for (const block of evaluation.blocks) for (const row of blockRows(block)) text += csvRow(row);
+  for (const row of attachmentRows(sheet.attachments)) text += csvRow(row);
   return text;
 }
 
@@ -94,6 +120,7 @@ export function caseJson({ firmName, sheet, evaluation, methods }: ExportFacts) 
     solverVersion: evaluation.solverVersion,
     evaluation,
     methods,
+    attachments: attachmentsJson(sheet.attachments),
     caution: DESIGN_AID_CAUTION,
   };
 }

@@ -1,8 +1,9 @@
 /**
  * Everything a calculation sheet or an export of one case needs from the database: the
- * case (as the reading page reads it), the chosen revision and its sign-off.
+ * case (as the reading page reads it), the chosen revision, its sign-off and its files.
  */
 import type { Database } from '../../db/client';
+import { attachmentsOfRevision, type AttachmentView } from '../attachments';
 import { getCaseReading, getRevision, type CaseReading } from '../cases';
 import { chooseRevision } from './choose';
 import { getSheetSignoff, type SheetSignoff } from './signoff';
@@ -22,6 +23,8 @@ export interface SheetCase {
   case: CaseReading;
   revision: SheetRevision;
   signoff: SheetSignoff;
+  /** The files the revision shows, oldest first (as the reading page lists them). */
+  attachments: AttachmentView[];
 }
 
 /** Who asks: decides the default revision as on the reading page. */
@@ -48,6 +51,9 @@ export async function getSheetCase(database: Database, firmId: string, caseId: s
     if (!other) return null;
     revision = { number, body: other.body, authorName: other.authorName, createdAt: other.createdAt, solverVersion: other.solverVersion };
   }
-  const signoff = await getSheetSignoff(database, firmId, found.id, number);
-  return { case: found, revision, signoff };
+  const [signoff, attachments] = await Promise.all([
+    getSheetSignoff(database, firmId, found.id, number),
+    attachmentsOfRevision(database, firmId, found.id, number),
+  ]);
+  return { case: found, revision, signoff, attachments };
 }
