@@ -5,7 +5,7 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { evaluateCase } from '../../src/lib/calc';
+import { evaluateCase, type BlockFiles } from '../../src/lib/calc';
 import type { BlockResult } from '../../src/lib/calc';
 import { readDemoCases } from '../../src/db/demoCases';
 
@@ -58,8 +58,16 @@ interface DemoCase {
 const files = readdirSync(DIR).filter((f) => f.endsWith('.md')).sort();
 const cases: DemoCase[] = files.map((file) => {
   const { yaml, body } = splitFrontmatter(readFileSync(join(DIR, file), 'utf8'));
-  return { file, meta: readYaml(yaml), body, blocks: evaluateCase(body).blocks };
+  const meta = readYaml(yaml);
+  return { file, meta, body, blocks: evaluateCase(body, demoFiles(meta['attachments'])).blocks };
 });
+
+/** The demo files a case attaches, as its blocks read them after the seed. */
+function demoFiles(names: unknown): BlockFiles {
+  const list = Array.isArray(names) ? names.map(String) : [];
+  const texts = Object.fromEntries(list.filter((n) => n.endsWith('.csv')).map((n) => [n, readFileSync(join(DIR, 'files', n), 'utf8')]));
+  return { names: list, texts };
+}
 
 const byType = (type: string) => cases.filter((c) => c.meta['structureType'] === type);
 const si = (block: BlockResult, name: string) => block.outputs.find((o) => o.name === name)?.si;
@@ -141,14 +149,17 @@ describe('demo cases in content/cases', () => {
     expect(byType('spillway-basin')[0]!.meta['attachments']).toEqual(['harrowgate-tailwater-rating.csv', 'harrowgate-basin-sketch.png']);
   });
 
-  it('case 1\'s attached rating CSV is the rating of its tailwater block, as stage above the 96.50 m AOD apron', () => {
+  it('case 1\'s tailwater blocks read the attached rating CSV, as stage less each block\'s apron level', () => {
     const [c] = byType('spillway-basin');
-    const block = /```tailwater existing[\s\S]*?rating:\n  Q m3\/s \| TW m\n((?:  .*\n)+)```/.exec(c!.body);
-    const fromBlock = block![1]!.trim().split('\n').map((l) => l.split('|').map((v) => Number(v.trim())));
-    const [comment, header, ...rows] = readFileSync(join(DIR, 'files', 'harrowgate-tailwater-rating.csv'), 'utf8').trimEnd().split('\n');
+    const [comment, header] = readFileSync(join(DIR, 'files', 'harrowgate-tailwater-rating.csv'), 'utf8').split('\n');
     expect(comment).toMatch(/^# .*invented demo data/);
     expect(header).toBe('Q (m3/s),stage (m AOD)');
-    expect(rows.map((r) => r.split(',').map(Number)).map(([q, stage]) => [q, Math.round((stage! - 96.5) * 100) / 100])).toEqual(fromBlock);
+    const tailwater = c!.blocks.filter((b) => b.kind === 'tailwater-check');
+    expect(tailwater.map((b) => b.tables?.[0]?.source)).toEqual(['harrowgate-tailwater-rating.csv', 'harrowgate-tailwater-rating.csv']);
+    // The prose's figures: swept out at every flow at 96.50 m AOD (lowering ≈ 0.62 m), none at 95.50 m AOD.
+    const [existing, lowered] = tailwater;
+    expect(si(existing!, 'requiredApronLowering') as number).toBeCloseTo(0.62, 2);
+    expect(si(lowered!, 'sweptOutCount')).toBe(0);
   });
 
   it('case 1 (spillway basin) chains toe → jump → tailwater with a steady design jump', () => {

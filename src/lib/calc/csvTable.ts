@@ -16,6 +16,7 @@
  *   space) and its unit, in one of these forms: `Q (m3/s)`, `Q [m³/s]`, `Q m3/s`, `Q_m3/s`,
  *   or the name alone (`Q`), which takes the unit system's display unit (m³/s and m for SI,
  *   cfs and ft for US). Units are those of `parseUnit` (m3/s, m³/s, L/s, cfs, ft3/s, m, mm, ft…).
+ *   A length may name its datum after the unit (`stage (m AOD)`, `WL (ft NAVD88)`).
  *   A header cell left empty marks a column to ignore; any other unrecognised cell, a column
  *   named twice, or a unit of the wrong quantity (`Q (m)`) is refused.
  * - **Cells** of the named columns hold one finite number each (`12`, `-0.5`, `1.2e3`; no
@@ -229,6 +230,10 @@ function headerCell(cell: string, columns: readonly CsvColumn[], system: UnitSys
     if (unitText === '') return withDefault(column);
     const unit = parseUnit(unitText, column.quantity);
     if (unit.ok) return { column, unit: unit.value, unitText };
+    // A level may name its datum after the unit: `stage (m AOD)`, `WL (ft NAVD88)`.
+    const datum = /^(\S+)\s+[A-Za-z][\w.-]*$/.exec(unitText);
+    const level = datum && column.quantity === 'length' ? parseUnit(datum[1] as string, column.quantity) : null;
+    if (level?.ok) return { column, unit: level.value, unitText: datum![1] as string };
     const other = parseUnit(unitText);
     const hint = `Write the unit as one of ${unitChoices(column.quantity)}, e.g. "${name} (${defaultSymbol(column, system)})".`;
     const needs = `the ${column.label.toLowerCase()} column needs a unit of ${column.quantity}`;

@@ -4,6 +4,8 @@
  */
 import type { Database } from '../../db/client';
 import { attachmentsOfRevision, type AttachmentView } from '../attachments';
+import { loadBlockFiles } from '../attachments/blockFiles';
+import { filesNamedIn, type BlockFiles } from '../calc';
 import { getCaseReading, getRevision, type CaseReading } from '../cases';
 import { chooseRevision } from './choose';
 import { getSheetSignoff, type SheetSignoff } from './signoff';
@@ -56,4 +58,10 @@ export async function getSheetCase(database: Database, firmId: string, caseId: s
     attachmentsOfRevision(database, firmId, found.id, number),
   ]);
   return { case: found, revision, signoff, attachments };
+}
+
+/** Loads the attached files the sheet's revision's blocks read (for `sheetBody`). */
+export function sheetFilesLoader(database: Database, firmId: string, sheet: SheetCase): () => Promise<BlockFiles> {
+  const { case: found, revision } = sheet;
+  return () => loadBlockFiles(database, { firmId, caseId: found.id, revision: revision.number, wanted: filesNamedIn(revision.body) });
 }

@@ -170,6 +170,15 @@ describe('readCsvTable: bad rows', () => {
 });
 
 describe('readCsvTable: headers', () => {
+  it('reads a level whose unit names its datum (m AOD, ft NAVD88)', () => {
+    const si = good('Q (m3/s),stage (m AOD)\n20,97.85\n40,98.30\n');
+    expect(si.values['stage']).toEqual([97.85, 98.3]);
+    const us = good('Q (cfs),WL (ft NAVD88)\n100,10\n200,12\n', { unitSystem: 'US' });
+    close(us.values['stage']!, [10 * FT, 12 * FT]);
+    // A datum word after a discharge unit is no unit at all.
+    expect(refused('Q (m3/s AOD),stage (m)\n1,2\n2,3\n').message).toContain('m3/s AOD');
+  });
+
   it('refuses a unit of the wrong quantity', () => {
     const r = refused('Q (m),TW (m)\n1,2\n2,3');
     expect(r.message).toBe('aldmere-rating.csv row 1: the header cell "Q (m)" gives the unit m, which measures length; the discharge column needs a unit of discharge.');

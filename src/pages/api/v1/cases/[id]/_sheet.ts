@@ -9,7 +9,7 @@ import { sheetBody } from '../../../../../components/sheet/sheetBody';
 import { db } from '../../../../../db/client';
 import { can } from '../../../../../lib/auth';
 import { requireMember, type MemberContext } from '../../../../../lib/http';
-import { exportFileName, getSheetCase, type ExportFacts } from '../../../../../lib/sheet';
+import { exportFileName, getSheetCase, sheetFilesLoader, type ExportFacts } from '../../../../../lib/sheet';
 import { caseNotFound } from '../_shared';
 
 /** The caller and the facts of the sheet, or the response that refuses them (401, 403, 404). */
@@ -19,7 +19,7 @@ export async function loadSheet(context: APIContext): Promise<Response | { calle
   const viewer = { userId: caller.user.id, mayReview: can(caller.firm.role, 'case', 'review') };
   const sheet = await getSheetCase(db(), caller.firm.firm.id, context.params.id ?? '', viewer, context.url.searchParams.get('rev'));
   if (!sheet) return caseNotFound();
-  const { evaluation } = sheetBody(`${sheet.case.id}#${sheet.revision.number}`, sheet.revision.body);
+  const { evaluation } = await sheetBody(`${sheet.case.id}#${sheet.revision.number}`, sheet.revision.body, sheetFilesLoader(db(), caller.firm.firm.id, sheet));
   return { caller, facts: { firmName: caller.firm.firm.name, sheet, evaluation, methods: await methodsUsed(evaluation) } };
 }
 
