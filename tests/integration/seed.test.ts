@@ -9,7 +9,7 @@ import path from 'node:path';
 import { and, eq } from 'drizzle-orm';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
 import { db } from '../../src/db/client';
-import { attachment, caseFile, organization } from '../../src/db/schema';
+import { attachment, caseFile, caseRevision, organization } from '../../src/db/schema';
 import { DEMO_PASSWORD, seedDemo } from '../../src/db/seed';
 import { attachmentsOfRevision } from '../../src/lib/attachments';
 import { hashPassword } from '../../src/lib/auth';
@@ -35,7 +35,9 @@ beforeAll(async () => {
     .select({ id: caseFile.id, publishedRevision: caseFile.publishedRevision, state: caseFile.state })
     .from(caseFile)
     .where(and(eq(caseFile.firmId, firmId), eq(caseFile.title, TITLE)));
-  expect(found).toMatchObject({ state: 'published', publishedRevision: 1 });
+  // Revision 1 is the body as created; attaching the rating its blocks read wrote revision 2,
+  // recalculated with it, which the review then published.
+  expect(found).toMatchObject({ state: 'published', publishedRevision: 2 });
   caseId = found!.id;
   published = found!.publishedRevision!;
 });
@@ -44,10 +46,21 @@ describe('demo attachments', () => {
   it('case 01 publishes its rating CSV and basin sketch, uploaded by its author with their captions', async () => {
     const files = await attachmentsOfRevision(db(), firmId, caseId, published);
     expect(files.map((f) => ({ fileName: f.fileName, contentType: f.contentType, sha256: f.sha256, size: f.size, caption: f.caption, uploaderName: f.uploaderName, addedInRevision: f.addedInRevision }))).toEqual([
-      { fileName: 'harrowgate-tailwater-rating.csv', contentType: 'text/csv', sha256: sha(committed('harrowgate-tailwater-rating.csv')), size: committed('harrowgate-tailwater-rating.csv').byteLength, caption: captions['harrowgate-tailwater-rating.csv'], uploaderName: 'Tomas Ilvar', addedInRevision: 1 },
-      { fileName: 'harrowgate-basin-sketch.png', contentType: 'image/png', sha256: sha(committed('harrowgate-basin-sketch.png')), size: committed('harrowgate-basin-sketch.png').byteLength, caption: captions['harrowgate-basin-sketch.png'], uploaderName: 'Tomas Ilvar', addedInRevision: 1 },
+      { fileName: 'harrowgate-tailwater-rating.csv', contentType: 'text/csv', sha256: sha(committed('harrowgate-tailwater-rating.csv')), size: committed('harrowgate-tailwater-rating.csv').byteLength, caption: captions['harrowgate-tailwater-rating.csv'], uploaderName: 'Tomas Ilvar', addedInRevision: 2 },
+      { fileName: 'harrowgate-basin-sketch.png', contentType: 'image/png', sha256: sha(committed('harrowgate-basin-sketch.png')), size: committed('harrowgate-basin-sketch.png').byteLength, caption: captions['harrowgate-basin-sketch.png'], uploaderName: 'Tomas Ilvar', addedInRevision: 2 },
     ]);
     expect(files[1]!.thumbnailUrl).not.toBeNull();
+  });
+
+  it('publishes results computed from the attached rating (no block errors), and revision 1 keeps none of the files', async () => {
+    const [row] = await db().select({ results: caseRevision.results }).from(caseRevision).where(and(eq(caseRevision.caseId, caseId), eq(caseRevision.number, published)));
+    const tailwater = row!.results.blocks.filter((b) => b.kind === 'tailwater-check');
+    expect(tailwater).toHaveLength(2);
+    for (const block of tailwater) {
+      expect(block.errors).toEqual([]);
+      expect(block.tables?.[0]?.source).toBe('harrowgate-tailwater-rating.csv');
+    }
+    expect(await attachmentsOfRevision(db(), firmId, caseId, 1)).toEqual([]);
   });
 
   it('stores the committed bytes, which download unchanged from the app', async () => {
