@@ -68,7 +68,7 @@ describe('a tailwater block reading an attached rating CSV', () => {
     await editor.fill(BODY);
     // The preview reads the CSV the Files panel just stored: results, and the rating's points on the chart.
     const preview = page.locator('[data-testid=case-preview]');
-    await preview.locator('text=rating points (penhallow-rating.csv)').waitFor({ timeout: 15_000 });
+    await preview.locator('svg text:has-text("rating points (penhallow-rating.csv)")').first().waitFor({ timeout: 15_000 });
     expect(await preview.textContent()).toContain('file penhallow-rating.csv, 5 rows');
     expect(await preview.locator('.notice-fault, [data-status=error]').count()).toBe(0);
     await page.waitForSelector('[data-testid=save-status][data-state=saved]', { timeout: 15_000 });
@@ -77,9 +77,9 @@ describe('a tailwater block reading an attached rating CSV', () => {
 
   it('reads the same on the case page, and the print view has the chart and the attached files', async () => {
     await page.goto(caseUrl);
-    await page.locator('main >> text=rating points (penhallow-rating.csv)').first().waitFor();
+    await page.locator('main svg text:has-text("rating points (penhallow-rating.csv)")').first().waitFor();
     await page.goto(`${caseUrl}/sheet`);
-    await page.locator('text=rating points (penhallow-rating.csv)').first().waitFor();
+    await page.locator('svg text:has-text("rating points (penhallow-rating.csv)")').first().waitFor();
     const sheet = (await page.textContent('body')) ?? '';
     expect(sheet).toContain('penhallow-rating.csv');
     expect(sheet).toContain('penhallow-weir-from-left-bank.jpg');
