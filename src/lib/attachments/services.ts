@@ -5,7 +5,7 @@
  * keeps its files. Every change locks the case row and records an audit event.
  */
 import { randomUUID } from 'node:crypto';
-import { and, asc, count, eq, gt, isNull, lte, or, sql } from 'drizzle-orm';
+import { and, asc, count, eq, sql } from 'drizzle-orm';
 import type { Database, Queryable } from '../../db/client';
 import { attachment, caseFile, user } from '../../db/schema';
 import { recordAudit } from '../audit';

@@ -1,11 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, or, sql } from 'drizzle-orm';
 import type { Database, Queryable } from '../../db/client';
-import { caseFile, caseRevision } from '../../db/schema';
+import { caseFile } from '../../db/schema';
 import { recordAudit } from '../audit';
 import { evaluateCase } from '../calc';
-import { keyFigures } from './keyFigures';
-import { findCase, keyFigureValues } from './rows';
+import { findCase, insertRevision } from './rows';
 import { nextFreeSlug, slugify } from './slug';
 import type { CaseDetail } from './types';
 import type { CaseMetadata } from './validation';
@@ -53,7 +52,6 @@ export async function createCase(database: Database, input: NewCase): Promise<Ca
   const body = input.body ?? '';
   // Evaluating is pure CPU: do it before the transaction so no lock waits on it.
   const results = evaluateCase(body);
-  const figures = keyFigures(results);
   const caseId = randomUUID();
   const { metadata } = input;
   return database.transaction(async (tx) => {
@@ -77,18 +75,7 @@ export async function createCase(database: Database, input: NewCase): Promise<Ca
       createdAt: now,
       updatedAt: now,
     });
-    await tx.insert(caseRevision).values({
-      id: randomUUID(),
-      caseId,
-      firmId: input.firmId,
-      number: 1,
-      body,
-      authorId: input.authorId,
-      createdAt: now,
-      ...keyFigureValues(figures),
-      results,
-      solverVersion: results.solverVersion,
-    });
+    await insertRevision(tx, { caseId, firmId: input.firmId, number: 1, body, authorId: input.authorId, createdAt: now, results });
     await recordAudit(tx, {
       firmId: input.firmId,
       actorUserId: input.authorId,

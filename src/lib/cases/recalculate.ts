@@ -4,13 +4,11 @@
  * so the results a file change brings are a new revision, and the one before keeps the
  * files and results it had.
  */
-import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { Queryable } from '../../db/client';
 import { caseFile, caseRevision } from '../../db/schema';
 import type { CaseEvaluation } from '../calc';
-import { keyFigures } from './keyFigures';
-import { keyFigureValues } from './rows';
+import { insertRevision } from './rows';
 
 /** The body of revision `number` of the firm's case, or null. */
 export async function revisionBody(tx: Queryable, firmId: string, caseId: string, number: number): Promise<string | null> {
@@ -30,18 +28,7 @@ export async function writeRecalculatedRevision(
   input: { firmId: string; caseId: string; number: number; body: string; authorId: string; results: CaseEvaluation },
 ): Promise<void> {
   const now = new Date();
-  await tx.insert(caseRevision).values({
-    id: randomUUID(),
-    caseId: input.caseId,
-    firmId: input.firmId,
-    number: input.number,
-    body: input.body,
-    authorId: input.authorId,
-    createdAt: now,
-    ...keyFigureValues(keyFigures(input.results)),
-    results: input.results,
-    solverVersion: input.results.solverVersion,
-  });
+  await insertRevision(tx, { caseId: input.caseId, firmId: input.firmId, number: input.number, body: input.body, authorId: input.authorId, createdAt: now, results: input.results });
   await tx
     .update(caseFile)
     .set({ latestRevision: input.number, updatedAt: now })

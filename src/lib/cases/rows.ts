@@ -6,7 +6,9 @@ import { and, eq } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { Queryable } from '../../db/client';
 import { caseFile, caseRevision, user } from '../../db/schema';
-import type { KeyFigures } from './keyFigures';
+import { randomUUID } from 'node:crypto';
+import type { CaseEvaluation } from '../calc';
+import { keyFigures, type KeyFigures } from './keyFigures';
 import type { CaseDetail, CaseRevisionDetail, CaseSummary } from './types';
 
 /** The author of a revision (the `user` table under another name, to join it twice). */
@@ -132,4 +134,23 @@ export async function findCase(database: Queryable, firmId: string, caseId: stri
     results: revisionResults,
   };
   return { ...(summary satisfies CaseSummary), revision };
+}
+
+/** Writes revision `number` of a case: its body, its results and the key figures they give. */
+export async function insertRevision(
+  tx: Queryable,
+  r: { caseId: string; firmId: string; number: number; body: string; authorId: string; createdAt: Date; results: CaseEvaluation },
+): Promise<void> {
+  await tx.insert(caseRevision).values({
+    id: randomUUID(),
+    caseId: r.caseId,
+    firmId: r.firmId,
+    number: r.number,
+    body: r.body,
+    authorId: r.authorId,
+    createdAt: r.createdAt,
+    ...keyFigureValues(keyFigures(r.results)),
+    results: r.results,
+    solverVersion: r.results.solverVersion,
+  });
 }

@@ -1,7 +1,6 @@
-import { randomUUID } from 'node:crypto';
 import { and, eq, isNull } from 'drizzle-orm';
 import type { Database, Queryable } from '../../db/client';
-import { approval, caseFile, caseRevision } from '../../db/schema';
+import { approval, caseFile } from '../../db/schema';
 import { recordAudit } from '../audit';
 import { evaluateRevision } from '../attachments/blockFiles';
 import { evaluateCase, filesNamedIn } from '../calc';
@@ -10,8 +9,7 @@ import { afterEdit } from '../review/transitions';
 import { notifyReview } from '../review/notify';
 import { wakeMailWorker } from '../mail';
 import { queueSearchUpdate, wakeSearchWorker } from '../search';
-import { keyFigures } from './keyFigures';
-import { findCase, findRevision, keyFigureValues, lockCase } from './rows';
+import { findCase, findRevision, insertRevision, lockCase } from './rows';
 import type { CaseDetail, LatestRevisionInfo } from './types';
 import type { CaseMetadataPatch } from './validation';
 
@@ -139,18 +137,7 @@ async function applySave(database: Database, input: CaseSave): Promise<SaveCaseR
     const now = new Date();
     const number = revisionCreated ? current.latestRevision + 1 : current.latestRevision;
     if (newBody) {
-      await tx.insert(caseRevision).values({
-        id: randomUUID(),
-        caseId: current.id,
-        firmId: input.firmId,
-        number,
-        body: newBody.body,
-        authorId: input.userId,
-        createdAt: now,
-        ...keyFigureValues(keyFigures(newBody.results)),
-        results: newBody.results,
-        solverVersion: newBody.results.solverVersion,
-      });
+      await insertRevision(tx, { caseId: current.id, firmId: input.firmId, number, body: newBody.body, authorId: input.userId, createdAt: now, results: newBody.results });
     }
     await tx
       .update(caseFile)
