@@ -16,13 +16,9 @@ const y = (level: number) => 120 + (110 - level) * 30;
 const text = (x: number, yy: number, s: string, extra = '') => `<text x="${x}" y="${yy}" ${extra}>${s}</text>`;
 
 /** Long section of the Harrowgate auxiliary spillway chute and plain stilling basin (case 01). */
-function harrowgateSketch(): string {
-  const crest = { x: 210, y: y(105.3) };
-  const toe = { x: 560, y: y(95.5) };
-  const basinEnd = 900;
-  const tail = y(101.35);
-  return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}">
-  <defs>
+
+/** The hatch and arrow every sketch uses, and its paper. */
+const DEFS = `<defs>
     <pattern id="hatch" width="10" height="10" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
       <line x1="0" y1="0" x2="0" y2="10" stroke="#9a958a" stroke-width="1.2"/>
     </pattern>
@@ -30,7 +26,15 @@ function harrowgateSketch(): string {
       <path d="M0,0 L10,5 L0,10 z" fill="#222"/>
     </marker>
   </defs>
-  <rect width="${W}" height="${H}" fill="#fbfaf6"/>
+  <rect width="${W}" height="${H}" fill="#fbfaf6"/>`;
+
+function harrowgateSketch(): string {
+  const crest = { x: 210, y: y(105.3) };
+  const toe = { x: 560, y: y(95.5) };
+  const basinEnd = 900;
+  const tail = y(101.35);
+  return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}">
+${DEFS}
   <g font-family="DejaVu Sans, Liberation Sans, sans-serif" fill="#222">
     ${text(40, 52, 'Harrowgate auxiliary spillway — basin sketch (demo)', 'font-size="30" font-weight="bold"')}
     ${text(40, 84, 'Long section along the chute centre line, design flood 280 m³/s · not to scale vertically', 'font-size="17" fill="#555"')}
@@ -92,15 +96,7 @@ function kilnbarrowSketch(): string {
   const rampEnd = 1010;
   const font = 'font-family="DejaVu Sans, Liberation Sans, sans-serif"';
   return `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}">
-  <defs>
-    <pattern id="hatch" width="10" height="10" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-      <line x1="0" y1="0" x2="0" y2="10" stroke="#9a958a" stroke-width="1.2"/>
-    </pattern>
-    <marker id="arrow" markerWidth="10" markerHeight="10" refX="9" refY="5" orient="auto-start-reverse">
-      <path d="M0,0 L10,5 L0,10 z" fill="#222"/>
-    </marker>
-  </defs>
-  <rect width="${W}" height="${H}" fill="#fbfaf6"/>
+${DEFS}
   <g ${font} fill="#222">
     ${text(40, 52, 'Kilnbarrow Lane culvert — outlet apron sketch (demo)', 'font-size="30" font-weight="bold"')}
     ${text(40, 84, 'Long section on the centre line, design flow 14.0 m³/s · levels from the beck bed · not to scale', 'font-size="17" fill="#555"')}
