@@ -65,16 +65,3 @@ export function readBlockFile(files: BlockFiles, asked: string): FileRead {
   }
   return { ok: true, fileName: name, text };
 }
-
-/** A short fingerprint of the files a body reads, for cache keys (names and lengths and a hash of the text). */
-export function filesKey(files: BlockFiles): string {
-  const parts: string[] = [];
-  for (const name of Object.keys(files.texts).sort()) {
-    const text = files.texts[name]!;
-    let h = 2166136261;
-    for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 16777619);
-    parts.push(`${name}:${text.length}:${(h >>> 0).toString(36)}`);
-  }
-  for (const name of Object.keys(files.unreadable ?? {}).sort()) parts.push(`${name}:!`);
-  return `${[...files.names].sort().join('/')}|${parts.join('|')}`;
-}

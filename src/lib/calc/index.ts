@@ -7,5 +7,5 @@ export { parseBlock, parseNumber } from './parseBlock';
 export { MAX_LIST_LENGTH } from './resolveInputs';
 export { EvaluateRequestSchema, JsonInputSchema, SolveRequestSchema, type SolveRequest } from './requests';
 export type { BlockResult, BlockWarning, CaseEvaluation, InputTable, ShownColumn, ShownValue } from './results';
-export { filesKey, filesNamedIn, matchFileName, NO_FILES, readBlockFile, type BlockFiles } from './files';
+export { filesNamedIn, matchFileName, NO_FILES, readBlockFile, type BlockFiles } from './files';
 export type { Assignment, BlockSource, LineIssue, ValueNode } from './syntax';

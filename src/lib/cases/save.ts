@@ -81,7 +81,7 @@ export async function saveCase(database: Database, input: CaseSave): Promise<Sav
 async function sameTextSince(tx: Queryable, firmId: string, caseId: string, base: number, latestBody: string): Promise<boolean> {
   if (!Number.isInteger(base) || base < 1) return false;
   const older = await findRevision(tx, firmId, caseId, base);
-  return older !== null && older !== undefined && older.body === latestBody;
+  return older !== null && older.body === latestBody;
 }
 
 async function applySave(database: Database, input: CaseSave): Promise<SaveCaseResult> {
