@@ -24,6 +24,7 @@ export {
   canChangeAttachments,
   captionAttachment,
   findAttachmentFile,
+  findWorkingRevision,
   listAttachments,
   removeAttachment,
   workingRevision,

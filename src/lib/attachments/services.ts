@@ -93,13 +93,19 @@ export async function listAttachments(
   caseId: string,
   revision?: number,
 ): Promise<{ revision: number; attachments: AttachmentView[] } | null> {
+  const working = await findWorkingRevision(database, firmId, caseId);
+  if (working === null) return null;
+  const n = revision ?? working;
+  return { revision: n, attachments: await attachmentsOfRevision(database, firmId, caseId, n) };
+}
+
+/** The revision file changes of the firm's case go to ({@link workingRevision}), or null for a case not in the firm. */
+export async function findWorkingRevision(database: Queryable, firmId: string, caseId: string): Promise<number | null> {
   const [found] = await database
     .select({ latestRevision: caseFile.latestRevision, publishedRevision: caseFile.publishedRevision })
     .from(caseFile)
     .where(and(eq(caseFile.id, caseId), eq(caseFile.firmId, firmId)));
-  if (!found) return null;
-  const n = revision ?? workingRevision(found);
-  return { revision: n, attachments: await attachmentsOfRevision(database, firmId, caseId, n) };
+  return found ? workingRevision(found) : null;
 }
 
 /**

@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { db } from '../../../db/client';
-import { listAttachments } from '../../../lib/attachments';
+import { findWorkingRevision } from '../../../lib/attachments';
 import { loadBlockFiles } from '../../../lib/attachments/blockFiles';
 import { EvaluateRequestSchema, evaluateCase, filesNamedIn, NO_FILES } from '../../../lib/calc';
 import { DESIGN_AID_CAUTION } from '../../../lib/caution';
@@ -20,9 +20,9 @@ export const POST: APIRoute = async (context) => {
   let files = NO_FILES;
   if (caseId !== undefined) {
     const firmId = caller.firm.firm.id;
-    const listed = await listAttachments(db(), firmId, caseId);
-    if (!listed) return caseNotFound();
-    files = await loadBlockFiles(db(), { firmId, caseId, revision: listed.revision, wanted: filesNamedIn(markdown) });
+    const revision = await findWorkingRevision(db(), firmId, caseId);
+    if (revision === null) return caseNotFound();
+    files = await loadBlockFiles(db(), { firmId, caseId, revision, wanted: filesNamedIn(markdown) });
   }
   return json({ ...evaluateCase(markdown, files), caution: DESIGN_AID_CAUTION });
 };

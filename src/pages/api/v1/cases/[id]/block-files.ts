@@ -1,6 +1,6 @@
 import type { APIRoute } from 'astro';
 import { db } from '../../../../../db/client';
-import { listAttachments } from '../../../../../lib/attachments';
+import { findWorkingRevision } from '../../../../../lib/attachments';
 import { loadBlockFiles } from '../../../../../lib/attachments/blockFiles';
 import { json, requireMember } from '../../../../../lib/http';
 import { caseNotFound } from '../_shared';
@@ -14,8 +14,8 @@ export const GET: APIRoute = async (context) => {
   if (caller instanceof Response) return caller;
   const firmId = caller.firm.firm.id;
   const caseId = context.params.id ?? '';
-  const listed = await listAttachments(db(), firmId, caseId);
-  if (!listed) return caseNotFound();
-  const files = await loadBlockFiles(db(), { firmId, caseId, revision: listed.revision, wanted: 'all' });
-  return json({ revision: listed.revision, ...files }, 200, { 'cache-control': 'private, no-store' });
+  const revision = await findWorkingRevision(db(), firmId, caseId);
+  if (revision === null) return caseNotFound();
+  const files = await loadBlockFiles(db(), { firmId, caseId, revision, wanted: 'all' });
+  return json({ revision, ...files }, 200, { 'cache-control': 'private, no-store' });
 };
