@@ -3,6 +3,7 @@
  * and tailwater TW against discharge Q, and each flow's jump position. Pure; SI units.
  */
 import type { BlockResult } from '../../lib/calc';
+import { ratingDepths } from '../../lib/solver';
 
 /** One flow of a tailwater check. */
 export interface TailwaterPoint {
@@ -73,16 +74,14 @@ export function tailwaterSeries(block: BlockResult): TailwaterSeries | null {
 function ratingOf(block: BlockResult): { rating: RatingPoint[]; source: string | null } {
   const table = block.tables?.find((t) => t.name === 'tailwaterRating');
   if (!table) return { rating: [], source: null };
-  const q = table.columns['discharge'] ?? [];
-  let depth = table.columns['depth'];
-  if (!depth && table.columns['stage']) {
-    const apron = block.inputs.find((i) => i.name === 'apronLevel')?.si;
-    depth = typeof apron === 'number' ? table.columns['stage'].map((s) => s - apron) : undefined;
-  }
-  if (!depth) return { rating: [], source: table.source };
+  const { discharge = [], depth, stage } = table.columns;
+  const apron = block.inputs.find((i) => i.name === 'apronLevel')?.si;
+  // The solver's own rule turns stages into depths, so the points are those it used.
+  const used = ratingDepths({ discharge, ...(depth ? { depth } : {}), ...(stage ? { stage } : {}) }, typeof apron === 'number' ? apron : undefined);
+  if (!used.ok) return { rating: [], source: table.source };
   const rating: RatingPoint[] = [];
-  q.forEach((x, i) => {
-    const d = finite(depth![i]);
+  used.value.discharge.forEach((x, i) => {
+    const d = finite(used.value.depth[i]);
     if (finite(x) !== null && d !== null) rating.push({ q: x, depth: d });
   });
   return { rating, source: table.source };

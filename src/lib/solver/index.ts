@@ -77,6 +77,7 @@ export {
   type SluiceGateResult,
 } from './sluiceGate';
 export { interpolateRating, validateRatingTable, type RatingTable } from './tailwaterRating';
+export { ratingDepths } from './tailwaterCheckKind';
 export {
   DEFAULT_TOE_TOLERANCE,
   dischargeRange,
