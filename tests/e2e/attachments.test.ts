@@ -3,7 +3,7 @@ import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -12,13 +12,8 @@ let caseUrl = '';
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  page = await (await browser.newContext({ viewport: { width: 1400, height: 1000 } })).newPage();
-  page.on('console', (m) => {
-    // A refused upload answers 415: the browser logs the failed request, which is expected here.
-    if (m.type() === 'error' && !/status of 415/.test(m.text())) consoleErrors.push(`${page.url()}: ${m.text()}`);
-  });
-  page.on('pageerror', (e) => consoleErrors.push(`${page.url()}: ${e.message}`));
-  await signInAs(page, 'ada.quillon@brightwater.example');
+  // A refused upload answers 415: the browser logs the failed request, which is expected here.
+  page = await signedInPage(browser, 'ada.quillon@brightwater.example', consoleErrors, { console: { ignore: /status of 415/ } });
 });
 
 afterAll(async () => {

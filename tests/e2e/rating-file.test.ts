@@ -6,7 +6,7 @@
 import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+import { launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -32,12 +32,7 @@ const BODY = [
 
 beforeAll(async () => {
   browser = await launchBrowser();
-  page = await (await browser.newContext({ viewport: { width: 1400, height: 1000 } })).newPage();
-  page.on('console', (m) => {
-    if (m.type() === 'error') consoleErrors.push(`${page.url()}: ${m.text()}`);
-  });
-  page.on('pageerror', (e) => consoleErrors.push(`${page.url()}: ${e.message}`));
-  await signInAs(page, 'ada.quillon@brightwater.example');
+  page = await signedInPage(browser, 'ada.quillon@brightwater.example', consoleErrors, { console: {} });
 });
 
 afterAll(async () => {

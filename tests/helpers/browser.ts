@@ -38,10 +38,17 @@ export async function signInAs(page: Page, email: string, password = DEMO_PASSWO
 
 /**
  * A new browser context (1400 × 1000) signed in as `email`, as a colleague at another desk;
- * uncaught page errors are appended to `errors`. Closing the browser closes it.
+ * uncaught page errors are appended to `errors`, and with `console` also the console's
+ * errors (but those matching `console.ignore`). Closing the browser closes it.
  */
-export async function signedInPage(browser: Browser, email: string, errors: string[]): Promise<Page> {
+export async function signedInPage(browser: Browser, email: string, errors: string[], options: { console?: { ignore?: RegExp } } = {}): Promise<Page> {
   const page = await (await browser.newContext({ viewport: { width: 1400, height: 1000 } })).newPage();
+  if (options.console) {
+    const ignore = options.console.ignore;
+    page.on('console', (m) => {
+      if (m.type() === 'error' && !(ignore && ignore.test(m.text()))) errors.push(`${page.url()}: ${m.text()}`);
+    });
+  }
   page.on('pageerror', (e) => errors.push(`${page.url()}: ${e.message}`));
   await signInAs(page, email);
   return page;
