@@ -3,7 +3,7 @@ import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
+import { createCaseFromForm, launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -22,12 +22,7 @@ afterAll(async () => {
 
 describe('attachments', () => {
   it('uploads a photo with the picker and a CSV by drag and drop, refuses a disguised file, captions', async () => {
-    await page.click('text=New case');
-    await page.fill('#title', 'Ashcombe weir apron, site photos and levels');
-    await page.selectOption('#structureType', 'spillway-basin');
-    await page.selectOption('#sectionShape', 'rectangular');
-    await Promise.all([page.waitForURL(/\/cases\/[^/]+\/edit$/), page.click('button:has-text("Create and open the editor")')]);
-    caseUrl = page.url().replace(/\/edit$/, '');
+    caseUrl = await createCaseFromForm(page, { title: 'Ashcombe weir apron, site photos and levels', structureType: 'spillway-basin', sectionShape: 'rectangular' });
     await page.waitForSelector('[data-testid=attachments-empty]');
     await page.locator('[data-testid=attachments-panel]').screenshot({ path: screenshotPath('attachments-empty') });
 

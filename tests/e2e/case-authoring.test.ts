@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { appUrl } from '../helpers/app';
-import { launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
+import { createCaseFromForm, launchBrowser, screenshotPath, signInAs } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -26,12 +26,7 @@ const editorText = () => page.locator('[data-testid=case-editor] textarea.w-md-e
 
 describe('writing a case', () => {
   it('creates a case from the skeleton and opens the editor', async () => {
-    await page.click('text=New case');
-    await page.fill('#title', 'Brackenford culvert outlet, 1 in 100 year flow');
-    await page.selectOption('#structureType', 'culvert-outlet');
-    await page.selectOption('#sectionShape', 'trapezoidal');
-    await Promise.all([page.waitForURL(/\/cases\/[^/]+\/edit$/), page.click('button:has-text("Create and open the editor")')]);
-    caseUrl = page.url().replace(/\/edit$/, '');
+    caseUrl = await createCaseFromForm(page, { title: 'Brackenford culvert outlet, 1 in 100 year flow', structureType: 'culvert-outlet', sectionShape: 'trapezoidal' });
     await page.waitForSelector('[data-testid=case-preview] table');
     expect(await page.textContent('[data-testid=case-preview]')).toContain('Sequent depth');
   });

@@ -6,7 +6,7 @@
 import sharp from 'sharp';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
+import { createCaseFromForm, launchBrowser, screenshotPath, signedInPage } from '../helpers/browser';
 
 let browser: Browser;
 let page: Page;
@@ -41,12 +41,7 @@ afterAll(async () => {
 
 describe('a tailwater block reading an attached rating CSV', () => {
   it('uploads a photo and the rating, names the CSV in the block and shows the chart with its points', async () => {
-    await page.click('text=New case');
-    await page.fill('#title', 'Penhallow weir basin, tailwater from the gauge rating');
-    await page.selectOption('#structureType', 'spillway-basin');
-    await page.selectOption('#sectionShape', 'rectangular');
-    await Promise.all([page.waitForURL(/\/cases\/[^/]+\/edit$/), page.click('button:has-text("Create and open the editor")')]);
-    caseUrl = page.url().replace(/\/edit$/, '');
+    caseUrl = await createCaseFromForm(page, { title: 'Penhallow weir basin, tailwater from the gauge rating', structureType: 'spillway-basin', sectionShape: 'rectangular' });
     await page.waitForSelector('[data-testid=attachments-empty]');
 
     const photo = await sharp({ create: { width: 1200, height: 800, channels: 3, background: { r: 110, g: 130, b: 150 } } })

@@ -53,3 +53,16 @@ export async function signedInPage(browser: Browser, email: string, errors: stri
   await signInAs(page, email);
   return page;
 }
+
+/**
+ * Creates a case from the home page's "New case" form as a user would, and waits for its
+ * editor; returns the case page's URL (the editor's without `/edit`).
+ */
+export async function createCaseFromForm(page: Page, c: { title: string; structureType: string; sectionShape: string }): Promise<string> {
+  await page.click('text=New case');
+  await page.fill('#title', c.title);
+  await page.selectOption('#structureType', c.structureType);
+  await page.selectOption('#sectionShape', c.sectionShape);
+  await Promise.all([page.waitForURL(/\/cases\/[^/]+\/edit$/), page.click('button:has-text("Create and open the editor")')]);
+  return page.url().replace(/\/edit$/, '');
+}
