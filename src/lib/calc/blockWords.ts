@@ -11,6 +11,7 @@ export const BLOCK_WORDS = {
   toe: 'toe-depth',
   gate: 'sluice-gate',
   tailwater: 'tailwater-check',
+  basin: 'stilling-basin',
 } as const;
 
 /** A calculation word of an info string. */

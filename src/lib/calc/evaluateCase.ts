@@ -46,6 +46,19 @@ function failed(node: Node, errors: LineIssue[], unitSystem: UnitSystem = 'SI'):
   };
 }
 
+/** A column of a block's results table (a tailwater sweep's TW) as a list, one value per row. */
+function tableColumn(blockName: string, output: string, result: BlockResult, at: number): ReferenceValue {
+  const table = result.table!;
+  const column = table.columns[at]!;
+  const values = table.rows.map((r) => r[at]);
+  const missing = values.flatMap((v, i) => (typeof v === 'number' ? [] : [i + 1]));
+  if (column.quantity === 'text') return { ok: false, message: `${blockName}.${output} is a column of labels, not numbers.` };
+  if (missing.length) {
+    return { ok: false, message: `${blockName}.${output} has no value in row${missing.length > 1 ? 's' : ''} ${missing.slice(0, 8).join(', ')}${missing.length > 8 ? ', …' : ''} of its results, so it cannot be used as a list. Narrow that block's flows to those with a value.` };
+  }
+  return { ok: true, value: values as number[], quantity: column.quantity as Quantity };
+}
+
 /**
  * Evaluates a whole case body; see the module comment. `files` are the revision's attached
  * files that blocks may read (`rating = file "river-rating.csv"`); without them such a
@@ -100,7 +113,11 @@ export function evaluateCase(markdown: string, files: BlockFiles = NO_FILES): Ca
       }
       const result = evaluate(target, [...chain, node]);
       if (result.status === 'error') return { ok: false, message: `Block "${blockName}" has errors, so ${blockName}.${output} has no value yet.` };
-      const found = [...result.outputs, ...result.inputs].find((v) => v.name === output || v.symbol === output || v.name.toLowerCase() === output.toLowerCase());
+      const names = (v: { name: string; symbol: string }) => v.name === output || v.symbol === output || v.name.toLowerCase() === output.toLowerCase();
+      const scalar = result.outputs.find(names);
+      const columnAt = scalar ? -1 : (result.table?.columns.findIndex(names) ?? -1);
+      if (columnAt >= 0) return tableColumn(blockName, output, result, columnAt);
+      const found = scalar ?? result.inputs.find(names);
       if (!found || found.si === null) {
         const names = result.outputs.map((o) => o.symbol);
         const guess = closest(output, [...names, ...result.outputs.map((o) => o.name)]);

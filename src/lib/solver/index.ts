@@ -90,6 +90,8 @@ export {
   type TailwaterSource,
   type ToeMethod,
 } from './tailwaterCheck';
+export { BASIN_FAMILIES, BASIN_LIMITS, FAMILIES, safTailwaterFactor, type BasinElements, type BasinFamily, type BasinFamilyId, type ToeFlow } from './basinFamilies';
+export { DEFAULT_MAX_SUBMERGENCE, MAX_BASIN_FLOWS, screenStillingBasins, type FamilyScreening, type StillingBasinInput, type StillingBasinResult } from './stillingBasin';
 
 // Units and formatting.
 export { QUANTITIES, type Quantity } from './quantity';

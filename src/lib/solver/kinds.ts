@@ -6,12 +6,13 @@ import { HYDRAULIC_JUMP_SPEC, runHydraulicJump } from './hydraulicJumpKind';
 import type { InputValues, KindSpec, SolveOutput } from './kindSpec';
 import type { SolverResult } from './result';
 import { runSluiceGate, SLUICE_GATE_SPEC } from './sluiceGateKind';
+import { runStillingBasin, STILLING_BASIN_SPEC } from './stillingBasinKind';
 import { runSurge, SURGE_SPEC } from './surgeKind';
 import { runTailwaterCheck, TAILWATER_CHECK_SPEC } from './tailwaterCheckKind';
 import { runToeDepth, TOE_DEPTH_SPEC } from './toeDepthKind';
 
 /** Ids of every calculation kind, in menu order. */
-export const SOLVER_KINDS = ['hydraulic-jump', 'toe-depth', 'sluice-gate', 'tailwater-check', 'surge', 'dam-break'] as const;
+export const SOLVER_KINDS = ['hydraulic-jump', 'toe-depth', 'sluice-gate', 'tailwater-check', 'stilling-basin', 'surge', 'dam-break'] as const;
 
 /** One of {@link SOLVER_KINDS}. */
 export type SolverKind = (typeof SOLVER_KINDS)[number];
@@ -22,6 +23,7 @@ export const KIND_SPECS: Readonly<Record<SolverKind, KindSpec>> = {
   'toe-depth': TOE_DEPTH_SPEC,
   'sluice-gate': SLUICE_GATE_SPEC,
   'tailwater-check': TAILWATER_CHECK_SPEC,
+  'stilling-basin': STILLING_BASIN_SPEC,
   surge: SURGE_SPEC,
   'dam-break': DAM_BREAK_SPEC,
 };
@@ -32,6 +34,7 @@ export const KIND_RUNNERS: Readonly<Record<SolverKind, (v: InputValues) => Solve
   'toe-depth': runToeDepth,
   'sluice-gate': runSluiceGate,
   'tailwater-check': runTailwaterCheck,
+  'stilling-basin': runStillingBasin,
   surge: runSurge,
   'dam-break': runDamBreak,
 };

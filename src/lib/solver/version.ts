@@ -3,4 +3,4 @@
  * change (semver: patch for fixes that change digits, minor for new outputs, major for
  * changed meanings) whenever any result can change.
  */
-export const SOLVER_VERSION = '1.0.0';
+export const SOLVER_VERSION = '1.1.0';

@@ -89,6 +89,7 @@ describe('solve(kind, inputs) results', () => {
     'toe-depth': { shape: 'trapezoidal', width: 5, sideSlope: 1, discharge: 40, head: 12, lossCoefficient: 0.1 },
     'sluice-gate': { width: 3, opening: 0.5, upstreamDepth: 4 },
     'tailwater-check': { width: 10, dischargeMin: 20, dischargeMax: 200, dischargeSteps: 10, head: 12, tailwaterRating: { discharge: [0, 250], depth: [0.5, 4] } },
+    'stilling-basin': { y1: [0.5], velocities: [14], tailwater: [4.6] },
     surge: { depth: 2, velocity: 1.5, direction: 'upstream', dischargeChange: -3 },
     'dam-break': { upstreamDepth: 10, downstreamDepth: 2, time: 30 },
   };
