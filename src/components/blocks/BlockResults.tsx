@@ -272,6 +272,12 @@ export function BlockBody({ block, children, showInputs = true, maxRows = 400 }:
       {showInputs && block.inputs.length > 0 && <Inputs inputs={block.inputs} />}
       {!failed && block.table && block.table.rows.length > 0 && <RowsTable block={block} maxRows={maxRows} />}
       {children}
+      {!failed && block.caution && (
+        <p className="text-sm text-ink-soft" data-testid="kind-caution">
+          <span className="font-semibold text-caution">Caution: </span>
+          {block.caution}
+        </p>
+      )}
       <p className="text-xs text-ink-faint">
         {`Solver ${block.solverVersion}`}
         {block.methodNote && (

@@ -110,6 +110,7 @@ export function buildResult(p: ResultParts): BlockResult {
     warnings,
     errors: [],
     methodNote: spec.methodNote,
+    ...(spec.caution ? { caution: spec.caution } : {}),
     solverVersion: p.solverVersion,
   };
 }

@@ -72,6 +72,8 @@ export interface BlockResult {
   readonly errors: readonly LineIssue[];
   /** Slug of the method note of the kind (content/methods). */
   readonly methodNote: string;
+  /** The kind's own caution (a basin screening's call for model studies), when it has one. */
+  readonly caution?: string;
   readonly solverVersion: string;
 }
 

@@ -116,6 +116,8 @@ export interface KindSpec {
   readonly summary: string;
   /** Slug of the method note in content/methods (without `.md`). */
   readonly methodNote: string;
+  /** A caution shown with every result of the kind, beyond the caution every result carries. */
+  readonly caution?: string;
   /** Inputs, in display order. */
   readonly inputs: readonly InputFieldSpec[];
   /** Alternative-input groups. */

@@ -24,6 +24,7 @@ export const STILLING_BASIN_SPEC: KindSpec = {
   title: 'Stilling-basin screening',
   summary: 'Which published basin families fit the inflow, how long the chosen basin is, its blocks and sill, and the tailwater margin over the flows.',
   methodNote: 'stilling-basin',
+  caution: 'Screening and first sizing only. The relations are empirical and hold inside their stated ranges; a basin for a major structure needs a physical model study, and every design must be checked by a licensed engineer under the codes that apply locally.',
   inputs: [
     list('y1', 'Toe depth', 'y1', 'y_1', 'length', `Depth at the toe for each flow: one value, a list (at most ${MAX_BASIN_FLOWS}) or a reference such as check.y1.`, { required: true }),
     list('velocities', 'Inflow velocity', 'V1', 'V_1', 'velocity', 'Velocity at the toe for each flow.', { group: 'inflow' }),
