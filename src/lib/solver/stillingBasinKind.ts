@@ -1,7 +1,7 @@
 /**
  * `stilling-basin` kind: metadata and adapter for {@link screenStillingBasins}.
  */
-import { BASIN_FAMILIES } from './basinFamilies';
+import { BASIN_FAMILIES, FAMILIES } from './basinFamilies';
 import { GRAVITY_FIELD, numberOutput, positiveField } from './inputFields';
 import type { InputFieldSpec, InputValues, KindSpec, OutputFieldSpec, SolveOutput } from './kindSpec';
 import type { Quantity } from './quantity';
@@ -38,7 +38,7 @@ export const STILLING_BASIN_SPEC: KindSpec = {
   ],
   groups: [{ id: 'inflow', options: [['velocities'], ['discharges', 'width'], ['unitDischarges']], description: 'Give the inflow as the velocity at the toe, the discharge with the basin width, or the discharge per unit width' }],
   outputs: [
-    text('family', 'Basin family', 'The family sized: the one asked for, or the monograph\'s choice among those that fit (none when none fits).'),
+    { ...text('family', 'Basin family', 'The family sized: the one asked for, or the monograph\'s choice among those that fit (none when none fits).'), choices: [...BASIN_FAMILIES.map((id) => FAMILIES[id].label), 'none'] },
     numberOutput('designDischarge', 'Design discharge', 'Qd', 'Q_d', 'discharge', 'Discharge of the flow that needs the longest basin.', true),
     numberOutput('y1', 'Toe depth', 'y1', 'y_1', 'length', 'Toe depth of the design flow.'),
     numberOutput('v1', 'Inflow velocity', 'V1', 'V_1', 'velocity', 'Velocity at the toe of the design flow.'),
