@@ -119,7 +119,7 @@ export function evaluateCase(markdown: string, files: BlockFiles = NO_FILES): Ca
       if (columnAt >= 0) return tableColumn(blockName, output, result, columnAt);
       const found = scalar ?? result.inputs.find(names);
       if (!found || found.si === null) {
-        const names = result.outputs.map((o) => o.symbol);
+        const names = [...result.outputs, ...(result.table?.columns ?? [])].map((o) => o.symbol).filter((x, i, all) => all.indexOf(x) === i);
         const guess = closest(output, [...names, ...result.outputs.map((o) => o.name)]);
         return { ok: false, message: `Block "${blockName}" has no result "${output}". Results: ${names.join(', ')}.`, ...(guess ? { hint: `Did you mean ${blockName}.${guess}?` } : {}) };
       }

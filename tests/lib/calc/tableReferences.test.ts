@@ -1,0 +1,54 @@
+/**
+ * References to a column of another block's results table: a tailwater sweep feeding a
+ * basin screening. The basin's per-flow depths must be the sweep's own, row for row.
+ */
+import { describe, expect, it } from 'vitest';
+import { evaluateCase } from '@/lib/calc';
+
+const fence = (info: string, ...lines: string[]) => ['```' + info, ...lines, '```'].join('\n');
+const sweep = (extra: string[] = []) =>
+  fence('tailwater check', 'b = 25 m', 'Q = 40 to 280 m3/s step 40', 'toe = head', 'H = 12.0 m', 'rating:', '  Q m3/s | TW m', '  0 | 1.0', '  300 | 6.4', ...extra);
+
+describe('a reference to a results-table column', () => {
+  const md = [sweep(), '', fence('basin pick', 'Q = check.Q', 'b = check.b', 'y1 = check.y1', 'TW = check.TW', 'family = usbr3')].join('\n');
+  const [check, basin] = evaluateCase(md).blocks;
+
+  it('gives the column as a list, one value per row', () => {
+    expect(check!.status).toBe('ok');
+    expect(basin!.status).toBe('ok');
+    const column = (name: string) => check!.table!.rows.map((r) => r[check!.table!.columns.findIndex((c) => c.name === name)]);
+    const input = (name: string) => basin!.inputs.find((i) => i.name === name)!.si;
+    expect(input('y1')).toEqual(column('y1'));
+    expect(input('tailwater')).toEqual(column('tailwater'));
+    expect(input('discharges')).toEqual(column('discharge'));
+  });
+
+  it('flags the flows of the sweep whose tailwater is short, by discharge', () => {
+    const w = basin!.warnings.find((x) => x.code === 'tailwater-too-low');
+    expect(w?.message).toMatch(/at \d of 7 flows/);
+    expect(w?.message).toContain('Q = 80 m³/s');
+    expect(w?.line).toBe(md.split('\n').indexOf('TW = check.TW') + 1);
+  });
+
+  it('refuses a column with rows that have no value, naming the rows', () => {
+    // The rating stops at 200 m³/s: the last two flows have no tailwater.
+    const short = [fence('tailwater check', 'b = 25 m', 'Q = 40 to 280 m3/s step 40', 'toe = head', 'H = 12.0 m', 'rating:', '  Q m3/s | TW m', '  0 | 1.0', '  200 | 4.4'), fence('basin pick', 'Q = check.Q', 'b = 25 m', 'y1 = check.y1', 'TW = check.TW')].join('\n');
+    const b = evaluateCase(short).blocks[1]!;
+    expect(b.status).toBe('error');
+    expect(b.errors[0]!.message).toBe('check.TW has no value in rows 6, 7 of its results, so it cannot be used as a list. Narrow that block\'s flows to those with a value.');
+  });
+
+  it('refuses a column of the wrong quantity and a column of labels', () => {
+    const wrong = [sweep(), fence('basin pick', 'Q = check.Q', 'b = 25 m', 'y1 = check.y1', 'TW = check.Q')].join('\n');
+    expect(evaluateCase(wrong).blocks[1]!.errors[0]!.message).toBe('check.Q is a list of discharge values, but Tailwater depth is a length.');
+    const labels = [sweep(), fence('basin pick', 'Q = check.Q', 'b = 25 m', 'y1 = check.y1', 'TW = check.state')].join('\n');
+    expect(evaluateCase(labels).blocks[1]!.errors[0]!.message).toBe('check.state is a column of labels, not numbers.');
+  });
+
+  it('takes a scalar result of a toe block as one flow', () => {
+    const one = [fence('toe spill', 'b = 12 m', 'Q = 85 m3/s', 'H = 9.5 m'), fence('basin', 'y1 = spill.y1', 'Q = 85 m3/s', 'b = spill.b', 'TW = 4.2 m')].join('\n');
+    const [toe, basin1] = evaluateCase(one).blocks;
+    expect(basin1!.status).toBe('ok');
+    expect(basin1!.outputs.find((o) => o.name === 'y1')!.si).toBe(toe!.outputs.find((o) => o.name === 'y1')!.si);
+  });
+});
