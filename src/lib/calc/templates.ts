@@ -53,6 +53,19 @@ export const BLOCK_TEMPLATES: readonly BlockTemplate[] = [
     ),
   },
   {
+    word: 'basin',
+    label: 'Stilling basin',
+    help: 'Which basin families fit the flows; length, blocks, sill and tailwater margin',
+    text: block(
+      'basin stilling',
+      'b = 25 m',
+      'Q = 120, 200, 280 m3/s',
+      'y1 = 0.32, 0.53, 0.75 m   # toe depth, one per flow',
+      'TW = 3.9, 4.9, 5.8 m      # tailwater above the apron, one per flow',
+      'family = auto',
+    ),
+  },
+  {
     word: 'surge',
     label: 'Surge or bore',
     help: 'A moving front: celerity, depth and velocity behind it',
