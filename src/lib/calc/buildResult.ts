@@ -31,7 +31,8 @@ export function show(
   let text: string;
   if (si === null || si === undefined) text = '—';
   else if (typeof si === 'string') text = si;
-  else if (typeof si === 'number') text = formatNumber(si / factor);
+  // Counts (`sweptOutCount`) read as whole numbers, not 5.000.
+  else if (typeof si === 'number') text = /Count$/.test(field.name) && Number.isInteger(si) ? String(si) : formatNumber(si / factor);
   else text = si.map((x) => formatNumber(x / factor)).join(', ');
   return { name: field.name, label: field.label, symbol: field.symbol, latex: field.latex, quantity: field.quantity, si, text, unit: typeof si === 'string' ? '' : unit };
 }

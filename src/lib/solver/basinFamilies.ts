@@ -168,5 +168,5 @@ export function safTailwaterFactor(fr1: number): number {
   return 1 - (fr1 * fr1) / 800;
 }
 
-/** The family the USBR monograph's own selection points to when every flow fits it. */
-export const SELECTION_ORDER: readonly BasinFamilyId[] = ['usbr3', 'usbr2', 'usbr4', 'natural', 'saf'];
+/** The USBR monograph's own selection: the first family every flow fits. SAF (small structures) only when asked for. */
+export const SELECTION_ORDER: readonly BasinFamilyId[] = ['usbr3', 'usbr2', 'usbr4', 'natural'];

@@ -32,7 +32,7 @@ export const STILLING_BASIN_SPEC: KindSpec = {
     positiveField('width', 'Basin width', 'b', 'b', 'length', 'Width of the rectangular basin.', { required: false, group: 'inflow' }),
     list('unitDischarges', 'Discharge per unit width', 'q', 'q', 'unitDischarge', 'Discharge per metre of basin width for each flow.', { group: 'inflow' }),
     list('tailwater', 'Tailwater depth', 'TW', 'TW', 'length', 'Tailwater depth above the apron for each flow: a value, a list, or the tailwater of a tailwater block (check.TW).'),
-    { name: 'family', label: 'Basin family', symbol: 'family', latex: '\\text{family}', type: 'choice', quantity: 'text', required: false, default: 'auto', choices: FAMILY_CHOICES, description: 'Family to size: auto takes the USBR monograph\'s own choice (III, else II, else IV, else the natural jump, else SAF) among those that fit every flow; natural, usbr2, usbr3, usbr4 or saf sizes that one.' },
+    { name: 'family', label: 'Basin family', symbol: 'family', latex: '\\text{family}', type: 'choice', quantity: 'text', required: false, default: 'auto', choices: FAMILY_CHOICES, description: 'Family to size: auto takes the USBR monograph\'s own choice (III, else II, else IV, else the natural jump) among those that fit every flow; natural, usbr2, usbr3, usbr4 or saf sizes that one.' },
     { name: 'maxSubmergence', label: 'Submergence limit', symbol: 'smax', latex: 's_{max}', type: 'number', quantity: 'dimensionless', required: false, default: DEFAULT_MAX_SUBMERGENCE, min: 0, description: 'Warn when (TW − y2)/y2 exceeds this (default 0.2, common practice): the jump is drowned.' },
     GRAVITY_FIELD,
   ],
