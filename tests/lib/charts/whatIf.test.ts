@@ -111,3 +111,22 @@ describe('WhatIfBlock (server render)', () => {
     expect(html).not.toContain('What if…');
   });
 });
+
+describe('what-if of a single-flow basin screening', () => {
+  const source = ['```basin pick', 'y1 = 0.5 m', 'V1 = 14 m/s', 'TW = 4.6 m', '```'].join('\n');
+  const block = evaluateWhatIf({ line: 1, index: 0 }, source)!;
+
+  it('offers the one-value lists (y1, V1, TW) as numbers', () => {
+    expect(whatIfPlan(block, source).fields.map((f) => [f.key, f.initial, f.unit])).toEqual([
+      ['y1', '0.5000', 'm'],
+      ['V1', '14.00', 'm/s'],
+      ['TW', '4.600', 'm'],
+    ]);
+  });
+
+  it('a lower tailwater sweeps the jump out of the basin', () => {
+    const text = whatIfSource(source, whatIfPlan(block, source), { tailwater: '3.9' }, 'SI')!;
+    expect(text.split('\n')[3]).toBe('TW = 3.9 m');
+    expect(evaluateWhatIf(block, text)!.warnings.map((w) => w.code)).toContain('tailwater-too-low');
+  });
+});
