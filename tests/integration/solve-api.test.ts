@@ -58,6 +58,32 @@ describe('POST /api/v1/solve', () => {
     expect(body.error.issues[0].message).toContain('no hydraulic jump can form');
   });
 
+  it('screens stilling basins over a list of flows, with the basin caution and the short flow named', async () => {
+    // Invented flows; the second one's tailwater is short of USBR II's 1.05·y2 (Peterka 1958, from memory).
+    const response = await call('/api/v1/solve', {
+      cookie,
+      json: { kind: 'basin', inputs: { Q: '84, 135, 192 m3/s', b: '10 m', y1: [0.6, 0.9, 1.2], TW: [5.0, 4.5, 7.2], family: 'usbr2' } },
+    });
+    expect(response.status).toBe(200);
+    const body = await response.json();
+    expect(body.result.kind).toBe('stilling-basin');
+    expect(body.result.outputs.find((o: { name: string }) => o.name === 'family').si).toBe('USBR II');
+    expect(body.result.table.rows).toHaveLength(5);
+    expect(body.result.caution).toContain('physical model study');
+    expect(body.result.warnings.find((w: { code: string }) => w.code === 'tailwater-too-low').message).toContain('Q = 135 m³/s');
+  });
+
+  it.each([
+    [{ y1: 0.5, V1: 1.5, TW: 2 }, 'inputs.y1', 'not supercritical'],
+    [{ y1: 0.5, V1: 12 }, 'inputs.tailwater', 'give TW'],
+  ])('answers 422 for a basin with bad input %j', async (inputs, path, message) => {
+    const response = await call('/api/v1/solve', { cookie, json: { kind: 'basin', inputs } });
+    expect(response.status).toBe(422);
+    const issue = (await response.json()).error.issues[0];
+    expect(issue.path).toBe(path);
+    expect(issue.message).toContain(message);
+  });
+
   it.each([
     [{ kind: 'warp-drive', inputs: {} }, 'kind'],
     [{ kind: 'jump', inputs: { b: { value: 'x', unit: 'm' } } }, 'inputs.b'],
