@@ -6,6 +6,7 @@
  */
 import { useId, type ReactNode } from 'react';
 import type { BlockResult, ShownColumn, ShownValue } from '../../lib/calc';
+import { WORD_COLUMNS } from './cellWords';
 import { displayNumber, SymbolText } from './typeset';
 
 /** Props of {@link BlockResults}. */
@@ -24,16 +25,6 @@ export interface BlockResultsProps {
   /** Most rows of a sweep rendered (default 400); the rest are counted in a note. */
   readonly maxRows?: number;
 }
-
-/** Words for the jump positions of a tailwater check, and their tone. */
-export const JUMP_POSITION_TEXT: Readonly<Record<string, { readonly text: string; readonly tone: string }>> = {
-  'swept-out': { text: 'swept out', tone: 'text-fault font-semibold' },
-  'at-toe': { text: 'at the toe', tone: 'text-sound' },
-  submerged: { text: 'submerged', tone: 'text-tailwater' },
-  'no-tailwater': { text: 'no tailwater', tone: 'text-caution' },
-  'no-jump': { text: 'no jump (Fr1 ≤ 1)', tone: 'text-ink-soft' },
-  surcharged: { text: 'conduit full', tone: 'text-caution' },
-};
 
 const SYSTEM_TEXT = { SI: 'SI units', US: 'US customary units' } as const;
 
@@ -103,7 +94,7 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
   return (
     <div className="overflow-x-auto">
       <table className="sheet-table tabular-nums">
-        <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`Flows (${table.rows.length})`}</caption>
+        <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`${block.kind === 'stilling-basin' ? 'Basin families' : 'Flows'} (${table.rows.length})`}</caption>
         <thead>
           <tr>
             {table.columns.map((c) => (
@@ -120,14 +111,14 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
               <tr key={r} className={state === 'swept-out' ? 'bg-fault-wash/60' : undefined}>
                 {row.map((cell, k) => {
                   const column = table.columns[k]!;
-                  if (column.name === 'state') {
-                    const position = JUMP_POSITION_TEXT[cell];
-                    return <td key={k} className={position?.tone}>{position?.text ?? cell}</td>;
-                  }
+                  const words = WORD_COLUMNS[column.name]?.[cell];
+                  if (words) return <td key={k} className={words.tone}>{words.text}</td>;
+                  const isText = column.quantity === 'text';
                   return k === 0 ? (
-                    <th key={k} scope="row" className="num font-normal text-ink">{displayNumber(cell)}</th>
+                    <th key={k} scope="row" className={`${isText ? 'align-top' : 'num'} font-normal text-ink`}>{displayNumber(cell)}</th>
                   ) : (
-                    <td key={k} className={column.quantity === 'text' ? undefined : 'num'}>{displayNumber(cell)}</td>
+                    // Long text (a basin family's range and relations) wraps in a column wide enough to read.
+                    <td key={k} className={isText ? 'min-w-48 align-top' : 'num'}>{displayNumber(cell)}</td>
                   );
                 })}
               </tr>
