@@ -79,10 +79,13 @@ function columnHeader(c: ShownColumn): ReactNode {
   return (
     <>
       <span className="block">{c.label}</span>
-      <span className="block font-normal">
-        <SymbolText latex={c.latex} symbol={c.symbol} />
-        {c.unit ? ` (${c.unit})` : c.quantity === 'text' ? '' : ' (–)'}
-      </span>
+      {/* A text column's symbol is only its name again. */}
+      {c.quantity !== 'text' && (
+        <span className="block font-normal">
+          <SymbolText latex={c.latex} symbol={c.symbol} />
+          {c.unit ? ` (${c.unit})` : ' (–)'}
+        </span>
+      )}
     </>
   );
 }
@@ -91,6 +94,8 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
   const table = block.table!;
   const shown = table.text.slice(0, maxRows);
   const stateColumn = table.columns.findIndex((c) => c.name === 'state');
+  // Rows with long text that wraps read from the top of each cell.
+  const wraps = table.columns.some((c) => c.quantity === 'text' && !WORD_COLUMNS[c.name]);
   return (
     <div className="overflow-x-auto">
       <table className="sheet-table tabular-nums">
@@ -108,17 +113,17 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
           {shown.map((row, r) => {
             const state = stateColumn >= 0 ? row[stateColumn] : undefined;
             return (
-              <tr key={r} className={state === 'swept-out' ? 'bg-fault-wash/60' : undefined}>
+              <tr key={r} className={state === 'swept-out' ? 'bg-fault-wash/60' : wraps ? 'align-top' : undefined}>
                 {row.map((cell, k) => {
                   const column = table.columns[k]!;
                   const words = WORD_COLUMNS[column.name]?.[cell];
                   if (words) return <td key={k} className={words.tone}>{words.text}</td>;
                   const isText = column.quantity === 'text';
                   return k === 0 ? (
-                    <th key={k} scope="row" className={`${isText ? 'align-top' : 'num'} font-normal text-ink`}>{displayNumber(cell)}</th>
+                    <th key={k} scope="row" className={`${isText ? 'min-w-32' : 'num'} font-normal text-ink`}>{displayNumber(cell)}</th>
                   ) : (
                     // Long text (a basin family's range and relations) wraps in a column wide enough to read.
-                    <td key={k} className={isText ? 'min-w-48 align-top' : 'num'}>{displayNumber(cell)}</td>
+                    <td key={k} className={isText ? 'min-w-48' : 'num'}>{displayNumber(cell)}</td>
                   );
                 })}
               </tr>

@@ -66,7 +66,10 @@ export function BasinOutlineChart({ block }: BasinOutlineChartProps) {
   const texts = elementTexts(block, input, len);
   const layout = basinOutlineLayout(input, BASIN_BOX, { chute: texts.chute.length, baffle: texts.baffle.length, sill: texts.sill.length });
   if (!layout) return null;
-  const { px, py } = layout;
+  // Coordinates to 0.01 px: the markup of a chart is a good part of a reading page's weight.
+  const at = (v: number) => Math.round(v * 100) / 100;
+  const px = (x: number) => at(layout.px(x));
+  const py = (z: number) => at(layout.py(z));
   const bed = py(0);
   const LB = input.basinLength;
   const path = (pts: readonly Point[], close = false) => `${line()(pts.map(([x, z]) => [px(x), py(z)] as [number, number])) ?? ''}${close ? 'Z' : ''}`;
