@@ -1,9 +1,12 @@
 /**
  * The chart that helps a block read: a `jump` gets its momentum/energy diagram and a side
  * view of the jump; a `tailwater` check its sequent-depth and tailwater curves against
- * discharge; other blocks (and blocks with errors) none.
+ * discharge; a `stilling-basin` screening the outline of the basin it sized; other blocks
+ * (blocks with errors, a screening where no family fits) none.
  */
 import type { BlockResult } from '../../lib/calc';
+import { basinOutlineInput } from '../charts/basinOutline';
+import { BasinOutlineChart, basinOutlineCaption } from '../charts/BasinOutlineChart';
 import { JumpProfileSketch } from '../charts/JumpProfileSketch';
 import { MomentumChart } from '../charts/MomentumChart';
 import { jumpCurves } from '../charts/momentumCurve';
@@ -17,11 +20,12 @@ export interface BlockChartProps {
   readonly showEnergy?: boolean;
 }
 
-/** Which chart a block gets: `jump`, `tailwater`, or `null` (other kinds, errors, nothing drawable). */
-export function chartKindOf(block: BlockResult): 'jump' | 'tailwater' | null {
+/** Which chart a block gets: `jump`, `tailwater`, `basin`, or `null` (other kinds, errors, nothing drawable). */
+export function chartKindOf(block: BlockResult): 'jump' | 'tailwater' | 'basin' | null {
   if (block.status !== 'ok') return null;
   if (block.kind === 'hydraulic-jump') return jumpCurves(block, 2) ? 'jump' : null;
   if (block.kind === 'tailwater-check') return tailwaterSeries(block) ? 'tailwater' : null;
+  if (block.kind === 'stilling-basin') return basinOutlineInput(block) ? 'basin' : null;
   return null;
 }
 
@@ -52,6 +56,15 @@ export function BlockChart({ block, showEnergy = true }: BlockChartProps) {
       <figure className={figure}>
         <TailwaterChart block={block} />
         <figcaption className={caption}>Sequent depth and tailwater against discharge; shaded where the jump is swept out.</figcaption>
+      </figure>
+    );
+  }
+  const basinCaption = kind === 'basin' ? basinOutlineCaption(block) : null;
+  if (basinCaption) {
+    return (
+      <figure className={figure} data-chart="basin">
+        <BasinOutlineChart block={block} />
+        <figcaption className={caption}>{basinCaption}</figcaption>
       </figure>
     );
   }

@@ -6,6 +6,7 @@
  */
 import { useId, type ReactNode } from 'react';
 import type { BlockResult, ShownColumn, ShownValue } from '../../lib/calc';
+import { WORD_COLUMNS } from './cellWords';
 import { displayNumber, SymbolText } from './typeset';
 
 /** Props of {@link BlockResults}. */
@@ -24,16 +25,6 @@ export interface BlockResultsProps {
   /** Most rows of a sweep rendered (default 400); the rest are counted in a note. */
   readonly maxRows?: number;
 }
-
-/** Words for the jump positions of a tailwater check, and their tone. */
-export const JUMP_POSITION_TEXT: Readonly<Record<string, { readonly text: string; readonly tone: string }>> = {
-  'swept-out': { text: 'swept out', tone: 'text-fault font-semibold' },
-  'at-toe': { text: 'at the toe', tone: 'text-sound' },
-  submerged: { text: 'submerged', tone: 'text-tailwater' },
-  'no-tailwater': { text: 'no tailwater', tone: 'text-caution' },
-  'no-jump': { text: 'no jump (Fr1 ≤ 1)', tone: 'text-ink-soft' },
-  surcharged: { text: 'conduit full', tone: 'text-caution' },
-};
 
 const SYSTEM_TEXT = { SI: 'SI units', US: 'US customary units' } as const;
 
@@ -88,10 +79,13 @@ function columnHeader(c: ShownColumn): ReactNode {
   return (
     <>
       <span className="block">{c.label}</span>
-      <span className="block font-normal">
-        <SymbolText latex={c.latex} symbol={c.symbol} />
-        {c.unit ? ` (${c.unit})` : c.quantity === 'text' ? '' : ' (–)'}
-      </span>
+      {/* A text column's symbol is only its name again. */}
+      {c.quantity !== 'text' && (
+        <span className="block font-normal">
+          <SymbolText latex={c.latex} symbol={c.symbol} />
+          {c.unit ? ` (${c.unit})` : ' (–)'}
+        </span>
+      )}
     </>
   );
 }
@@ -100,10 +94,12 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
   const table = block.table!;
   const shown = table.text.slice(0, maxRows);
   const stateColumn = table.columns.findIndex((c) => c.name === 'state');
+  // Rows with long text that wraps read from the top of each cell.
+  const wraps = table.columns.some((c) => c.quantity === 'text' && !WORD_COLUMNS[c.name]);
   return (
     <div className="overflow-x-auto">
       <table className="sheet-table tabular-nums">
-        <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`Flows (${table.rows.length})`}</caption>
+        <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`${block.kind === 'stilling-basin' ? 'Basin families' : 'Flows'} (${table.rows.length})`}</caption>
         <thead>
           <tr>
             {table.columns.map((c) => (
@@ -117,17 +113,17 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
           {shown.map((row, r) => {
             const state = stateColumn >= 0 ? row[stateColumn] : undefined;
             return (
-              <tr key={r} className={state === 'swept-out' ? 'bg-fault-wash/60' : undefined}>
+              <tr key={r} className={state === 'swept-out' ? 'bg-fault-wash/60' : wraps ? 'align-top' : undefined}>
                 {row.map((cell, k) => {
                   const column = table.columns[k]!;
-                  if (column.name === 'state') {
-                    const position = JUMP_POSITION_TEXT[cell];
-                    return <td key={k} className={position?.tone}>{position?.text ?? cell}</td>;
-                  }
+                  const words = WORD_COLUMNS[column.name]?.[cell];
+                  if (words) return <td key={k} className={words.tone}>{words.text}</td>;
+                  const isText = column.quantity === 'text';
                   return k === 0 ? (
-                    <th key={k} scope="row" className="num font-normal text-ink">{displayNumber(cell)}</th>
+                    <th key={k} scope="row" className={`${isText ? 'min-w-32' : 'num'} font-normal text-ink`}>{displayNumber(cell)}</th>
                   ) : (
-                    <td key={k} className={column.quantity === 'text' ? undefined : 'num'}>{displayNumber(cell)}</td>
+                    // Long text (a basin family's range and relations) wraps in a column wide enough to read.
+                    <td key={k} className={isText ? 'min-w-48' : 'num'}>{displayNumber(cell)}</td>
                   );
                 })}
               </tr>

@@ -6,10 +6,11 @@ import { renderToStaticMarkup } from 'react-dom/server';
 import { describe, expect, it } from 'vitest';
 import { BlockChart, chartKindOf } from '@/components/blocks/BlockChart';
 import { BlockResults } from '@/components/blocks/BlockResults';
+import { BasinOutlineChart } from '@/components/charts/BasinOutlineChart';
 import { JumpProfileSketch } from '@/components/charts/JumpProfileSketch';
 import { MomentumChart } from '@/components/charts/MomentumChart';
 import { TailwaterChart } from '@/components/charts/TailwaterChart';
-import type { BlockResult } from '@/lib/calc';
+import { evaluateCase, type BlockResult } from '@/lib/calc';
 import { BROKEN, JUMP, PIPE, SURGE, TAILWATER, TOE, US_JUMP } from './fixtures';
 
 const render = (block: BlockResult, props: Record<string, unknown> = {}) => renderToStaticMarkup(h(BlockResults, { block, ...props }));
@@ -175,5 +176,52 @@ describe('charts', () => {
     expect(renderToStaticMarkup(h(MomentumChart, { block: BROKEN }))).toBe('');
     expect(renderToStaticMarkup(h(JumpProfileSketch, { block: TOE }))).toBe('');
     expect(renderToStaticMarkup(h(TailwaterChart, { block: JUMP }))).toBe('');
+  });
+});
+
+describe('stilling-basin blocks', () => {
+  const basin = (lines: string[]) => evaluateCase(['```basin pick', ...lines, '```'].join('\n')).blocks[0]!;
+  const SHORT = basin(['y1 = 0.3, 0.5, 0.75 m', 'V1 = 15, 14.5, 14 m/s', 'TW = 3.2, 4.1, 5.6 m', 'family = usbr3']);
+  const NONE = basin(['y1 = 0.5 m', 'V1 = 3.0 m/s', 'TW = 1 m']);
+
+  it('draws the basin outline in a captioned figure, and nothing when no family fits', () => {
+    expect(chartKindOf(SHORT)).toBe('basin');
+    const html = renderToStaticMarkup(h(BlockChart, { block: SHORT }));
+    expect(html.match(/<svg /g)).toHaveLength(1);
+    expect(html).toContain('<figcaption class="mt-1 text-sm text-ink-soft">Basin outline to scale for the design flow, with the jump and tailwater of the governing flow; the water surface is schematic.</figcaption>');
+    expect(NONE.outputs.find((o) => o.name === 'family')?.si).toBe('none');
+    expect(chartKindOf(NONE)).toBeNull();
+    expect(renderToStaticMarkup(h(BlockChart, { block: NONE }))).toBe('');
+  });
+
+  it('is an accessible image that dimensions the basin, labels the elements and flags a short tailwater', () => {
+    const svg = renderToStaticMarkup(h(BasinOutlineChart, { block: SHORT }));
+    expect(svg).toMatch(/^<svg viewBox="0 [\d.]+ 640 [\d.]+" width="100%" role="img" aria-labelledby="\S+ \S+"[^>]*><title id="[^"]+">Side view of the stilling basin, block pick<\/title><desc/);
+    expect(svg).not.toMatch(/NaN|Infinity|undefined/);
+    for (const label of ['LB = 13.8 m', 'x3 = 4.09 m', 'chute blocks h1 = 0.750 m', 'baffle piers h3 = 1.12 m', 'end sill h4 = 0.965 m', 'TW = 3.20 m', 'TW required = 3.56 m', 'governing jump (schematic)']) {
+      expect(svg).toContain(label);
+    }
+    expect(svg).toContain('Tailwater short by 0.363 m: the jump sweeps out');
+    const sound = renderToStaticMarkup(h(BasinOutlineChart, { block: basin(['y1 = 0.5 m', 'V1 = 14 m/s', 'TW = 4.6 m']) }));
+    expect(sound).not.toContain('Tailwater short');
+    expect(sound).toContain('meets the 4.23 m the basin needs');
+  });
+
+  it('labels a US block in feet and a dentated sill as such', () => {
+    const us = renderToStaticMarkup(h(BasinOutlineChart, { block: basin(['units = US', 'y1 = 1.5 ft', 'V1 = 45 ft/s', 'TW = 14 ft', 'family = usbr2']) }));
+    expect(us).toMatch(/LB = [\d.]+ ft/);
+    expect(us).toContain('dentated sill h4 = ');
+    expect(us).toContain('stroke-dasharray="3 2"');
+  });
+
+  it('reads the fits column as fits/outside in the sound/caution tone and wraps the long text columns', () => {
+    const html = render(SHORT);
+    expect(html).toContain('Basin families (5)</caption>');
+    expect(html).toContain('<tr class="align-top"><th scope="row"');
+    expect(html).toContain('<th scope="col" class="align-bottom "><span class="block">Stated range</span></th>');
+    expect(html).toContain('<td class="text-sound">fits</td>');
+    expect(html).toContain('<td class="text-caution">outside</td>');
+    expect(html).toMatch(/<th scope="row" class="min-w-32 font-normal text-ink">USBR III<\/th>/);
+    expect(html).toMatch(/<td class="min-w-48">L = 2\.7·y2; TW = 1\.0·y2;/);
   });
 });
