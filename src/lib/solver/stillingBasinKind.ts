@@ -71,13 +71,13 @@ export const STILLING_BASIN_SPEC: KindSpec = {
     columns: [
       text('family', 'Family', 'Basin family.'),
       { ...text('fits', 'Fits', 'Whether every flow is inside the family\'s stated range.'), choices: ['yes', 'no'] },
-      text('why', 'Why', 'The first flow outside the range, or the range the flows span.'),
-      text('range', 'Stated range', 'The range the source gives.'),
-      text('relations', 'Relations', 'The relations used for length, tailwater and elements.'),
       numberOutput('basinLength', 'Length', 'LB', 'L_B', 'length', 'Basin length for the design flow.'),
       numberOutput('tailwaterFactor', 'TW/y2', 'TW/y2', 'TW/y_2', 'dimensionless', 'Required tailwater over y2.'),
       numberOutput('minMargin', 'Smallest margin', 'min(TW-TWreq)', '\\min(TW - TW_{req})', 'length', 'Smallest tailwater margin over the flows.'),
       numberOutput('criticalDischarge', 'At discharge', 'Qcrit', 'Q_{crit}', 'discharge', 'Discharge with the smallest margin.', true),
+      text('why', 'Why', 'The first flow outside the range, or the range the flows span.'),
+      text('range', 'Stated range', 'The range the source gives.'),
+      text('relations', 'Relations', 'The relations used for length, tailwater and elements.'),
     ],
   },
 };
