@@ -6,7 +6,8 @@
  */
 import { useId, type ReactNode } from 'react';
 import type { BlockResult, ShownColumn, ShownValue } from '../../lib/calc';
-import { WORD_COLUMNS } from './cellWords';
+import { NOTE_COLUMNS, WORD_COLUMNS } from './cellWords';
+import { RowNotes } from './RowNotes';
 import { displayNumber, SymbolText } from './typeset';
 
 /** Props of {@link BlockResults}. */
@@ -94,46 +95,49 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
   const table = block.table!;
   const shown = table.text.slice(0, maxRows);
   const stateColumn = table.columns.findIndex((c) => c.name === 'state');
-  // Rows with long text that wraps read from the top of each cell.
-  const wraps = table.columns.some((c) => c.quantity === 'text' && !WORD_COLUMNS[c.name]);
+  // Long text columns (a basin family's range and relations) go under the table as notes.
+  const columns = table.columns.flatMap((c, k) => (NOTE_COLUMNS.has(c.name) ? [] : [{ c, k }]));
+  const wraps = columns.some(({ c }) => c.quantity === 'text' && !WORD_COLUMNS[c.name]);
   return (
-    <div className="overflow-x-auto">
-      <table className="sheet-table tabular-nums">
-        <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`${block.kind === 'stilling-basin' ? 'Basin families' : 'Flows'} (${table.rows.length})`}</caption>
-        <thead>
-          <tr>
-            {table.columns.map((c) => (
-              <th key={c.name} scope="col" className={`align-bottom ${c.quantity === 'text' ? '' : 'num'}`}>
-                {columnHeader(c)}
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {shown.map((row, r) => {
-            const state = stateColumn >= 0 ? row[stateColumn] : undefined;
-            return (
-              <tr key={r} className={state === 'swept-out' ? 'bg-fault-wash/60' : wraps ? 'align-top' : undefined}>
-                {row.map((cell, k) => {
-                  const column = table.columns[k]!;
-                  const words = WORD_COLUMNS[column.name]?.[cell];
-                  if (words) return <td key={k} className={words.tone}>{words.text}</td>;
-                  const isText = column.quantity === 'text';
-                  return k === 0 ? (
-                    <th key={k} scope="row" className={`${isText ? 'min-w-32' : 'num'} font-normal text-ink`}>{displayNumber(cell)}</th>
-                  ) : (
-                    // Long text (a basin family's range and relations) wraps in a column wide enough to read.
-                    <td key={k} className={isText ? 'min-w-48' : 'num'}>{displayNumber(cell)}</td>
-                  );
-                })}
-              </tr>
-            );
-          })}
-        </tbody>
-      </table>
+    <div>
+      <div className="overflow-x-auto">
+        <table className="sheet-table tabular-nums">
+          <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`${block.kind === 'stilling-basin' ? 'Basin families' : 'Flows'} (${table.rows.length})`}</caption>
+          <thead>
+            <tr>
+              {columns.map(({ c }) => (
+                <th key={c.name} scope="col" className={`align-bottom ${c.quantity === 'text' ? '' : 'num'}`}>
+                  {columnHeader(c)}
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {shown.map((row, r) => {
+              const state = stateColumn >= 0 ? row[stateColumn] : undefined;
+              return (
+                <tr key={r} className={state === 'swept-out' ? 'bg-fault-wash/60' : wraps ? 'align-top' : undefined}>
+                  {columns.map(({ c: column, k }) => {
+                    const cell = row[k]!;
+                    const words = WORD_COLUMNS[column.name]?.[cell];
+                    if (words) return <td key={k} className={words.tone}>{words.text}</td>;
+                    const isText = column.quantity === 'text';
+                    return k === 0 ? (
+                      <th key={k} scope="row" className={`${isText ? 'min-w-32' : 'num'} font-normal text-ink`}>{displayNumber(cell)}</th>
+                    ) : (
+                      <td key={k} className={isText ? 'min-w-48' : 'num'}>{displayNumber(cell)}</td>
+                    );
+                  })}
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
       {table.rows.length > shown.length && (
         <p className="mt-1 text-sm text-ink-soft">{`The first ${shown.length} of ${table.rows.length} flows are shown.`}</p>
       )}
+      <RowNotes block={block} />
     </div>
   );
 }

@@ -21,3 +21,9 @@ export const FITS_TEXT: Readonly<Record<string, { readonly text: string; readonl
 
 /** Columns whose values read as toned words, by column name. */
 export const WORD_COLUMNS: Readonly<Record<string, typeof FITS_TEXT>> = { state: JUMP_POSITION_TEXT, fits: FITS_TEXT };
+
+/**
+ * Columns of long text (a basin family's stated range and relations) that read better as
+ * notes under the table, one entry per row, than as narrow cells that stretch every row.
+ */
+export const NOTE_COLUMNS: ReadonlySet<string> = new Set(['range', 'relations']);

@@ -214,14 +214,17 @@ describe('stilling-basin blocks', () => {
     expect(us).toContain('stroke-dasharray="3 2"');
   });
 
-  it('reads the fits column as fits/outside in the sound/caution tone and wraps the long text columns', () => {
+  it('reads the fits column as fits/outside in the sound/caution tone, with the ranges and relations as notes under the table', () => {
     const html = render(SHORT);
     expect(html).toContain('Basin families (5)</caption>');
     expect(html).toContain('<tr class="align-top"><th scope="row"');
-    expect(html).toContain('<th scope="col" class="align-bottom "><span class="block">Stated range</span></th>');
+    expect(html).not.toContain('<span class="block">Stated range</span></th>');
     expect(html).toContain('<td class="text-sound">fits</td>');
     expect(html).toContain('<td class="text-caution">outside</td>');
     expect(html).toMatch(/<th scope="row" class="min-w-32 font-normal text-ink">USBR III<\/th>/);
-    expect(html).toMatch(/<td class="min-w-48">L = 2\.7·y2; TW = 1\.0·y2;/);
+    const notes = html.slice(html.indexOf('data-testid="row-notes"'));
+    expect(notes).toMatch(/<dt class="font-semibold text-ink">USBR III<\/dt>/);
+    expect(notes).toContain('Stated range: </span>Fr1 ≥ 4.5, V1 ≤ 18.3 m/s (60 ft/s)');
+    expect(notes).toMatch(/Relations: <\/span>L = 2\.7·y2; TW = 1\.0·y2;/);
   });
 });
