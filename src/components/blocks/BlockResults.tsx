@@ -125,7 +125,7 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
                     return k === 0 ? (
                       <th key={k} scope="row" className={`${isText ? 'min-w-32' : 'num'} font-normal text-ink`}>{displayNumber(cell)}</th>
                     ) : (
-                      <td key={k} className={isText ? 'min-w-48' : 'num'}>{displayNumber(cell)}</td>
+                      <td key={k} className={isText ? 'min-w-40' : 'num'}>{displayNumber(cell)}</td>
                     );
                   })}
                 </tr>
