@@ -79,7 +79,7 @@ export function buildResult(p: ResultParts): BlockResult {
       inputs.push(show({ ...f, quantity: 'text' }, `file ${source}, ${rows} rows`, system));
     }
   }
-  const outputs = spec.outputs.map((o) => show(o, solved.values[o.name] ?? null, system));
+  const outputs = spec.outputs.filter((o) => !(o.omitWhenNull && (solved.values[o.name] ?? null) === null)).map((o) => show(o, solved.values[o.name] ?? null, system));
   const warnings: BlockWarning[] = p.warnings.map((w) => {
     const line = w.field !== undefined ? resolved.lineOf[w.field] : undefined;
     return line === undefined ? { code: w.code, message: w.message } : { code: w.code, message: w.message, line };

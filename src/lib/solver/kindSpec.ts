@@ -102,6 +102,8 @@ export interface OutputFieldSpec {
   readonly choices?: readonly string[];
   /** When true the value may be `null` (not defined for this case). */
   readonly nullable?: boolean;
+  /** When true a `null` value is left out of the results shown (an element the chosen basin family has none of). */
+  readonly omitWhenNull?: boolean;
   /** One or two sentences for help text. */
   readonly description: string;
 }

@@ -13,7 +13,9 @@ const list = (name: string, label: string, symbol: string, latex: string, quanti
 });
 
 const text = (name: string, label: string, description: string): OutputFieldSpec => ({ name, label, symbol: name, latex: `\\text{${name}}`, type: 'text', quantity: 'text', description });
-const size = (name: string, label: string, symbol: string, latex: string, description: string) => numberOutput(name, label, symbol, latex, 'length', description, true);
+/** An output that is null when the family sized has no such element (or none is sized): left out of the results shown. */
+const optional = (o: OutputFieldSpec): OutputFieldSpec => ({ ...o, omitWhenNull: true });
+const size = (name: string, label: string, symbol: string, latex: string, description: string) => optional(numberOutput(name, label, symbol, latex, 'length', description, true));
 
 /** Choices of the `family` input: the monograph's own selection, or one family by id. */
 export const FAMILY_CHOICES = ['auto', ...BASIN_FAMILIES] as const;
@@ -39,15 +41,15 @@ export const STILLING_BASIN_SPEC: KindSpec = {
   groups: [{ id: 'inflow', options: [['velocities'], ['discharges', 'width'], ['unitDischarges']], description: 'Give the inflow as the velocity at the toe, the discharge with the basin width, or the discharge per unit width' }],
   outputs: [
     { ...text('family', 'Basin family', 'The family sized: the one asked for, or the monograph\'s choice among those that fit (none when none fits).'), choices: [...BASIN_FAMILIES.map((id) => FAMILIES[id].label), 'none'] },
-    numberOutput('designDischarge', 'Design discharge', 'Qd', 'Q_d', 'discharge', 'Discharge of the flow that needs the longest basin.', true),
+    optional(numberOutput('designDischarge', 'Design discharge', 'Qd', 'Q_d', 'discharge', 'Discharge of the flow that needs the longest basin.', true)),
     numberOutput('y1', 'Toe depth', 'y1', 'y_1', 'length', 'Toe depth of the design flow.'),
     numberOutput('v1', 'Inflow velocity', 'V1', 'V_1', 'velocity', 'Velocity at the toe of the design flow.'),
     numberOutput('fr1', 'Froude number', 'Fr1', '\\mathrm{Fr}_1', 'dimensionless', 'Toe Froude number of the design flow.'),
     numberOutput('q', 'Discharge per unit width', 'q', 'q', 'unitDischarge', 'q = V1·y1 of the design flow.'),
     numberOutput('y2', 'Sequent depth', 'y2', 'y_2', 'length', 'Bélanger sequent depth of the design flow.'),
     size('basinLength', 'Basin length', 'LB', 'L_B', 'Length of the basin floor from the toe to the end sill.'),
-    numberOutput('tailwaterFactor', 'Tailwater factor', 'TW/y2', 'TW/y_2', 'dimensionless', 'Required tailwater as a multiple of y2 (design flow).', true),
-    numberOutput('governingDischarge', 'Governing discharge', 'Qg', 'Q_g', 'discharge', 'Discharge with the smallest tailwater margin.', true),
+    optional(numberOutput('tailwaterFactor', 'Tailwater factor', 'TW/y2', 'TW/y_2', 'dimensionless', 'Required tailwater as a multiple of y2 (design flow).', true)),
+    optional(numberOutput('governingDischarge', 'Governing discharge', 'Qg', 'Q_g', 'discharge', 'Discharge with the smallest tailwater margin.', true)),
     numberOutput('governingY1', 'Governing toe depth', 'y1g', 'y_{1,g}', 'length', 'Toe depth of the governing flow.'),
     numberOutput('governingY2', 'Governing sequent depth', 'y2g', 'y_{2,g}', 'length', 'Sequent depth of the governing flow.'),
     size('requiredTailwater', 'Required tailwater', 'TWreq', 'TW_{req}', 'Tailwater the family needs at the governing flow.'),

@@ -52,3 +52,19 @@ describe('a reference to a results-table column', () => {
     expect(basin1!.outputs.find((o) => o.name === 'y1')!.si).toBe(toe!.outputs.find((o) => o.name === 'y1')!.si);
   });
 });
+
+describe('a basin block\'s results leave out what the family has none of', () => {
+  const names = (md: string) => evaluateCase(md).blocks[0]!.outputs.map((o) => o.name);
+  it('a USBR III basin shows baffles and sill but no sill teeth, and no discharges when none were given', () => {
+    const shown = names(fence('basin', 'y1 = 0.5 m', 'V1 = 14 m/s', 'TW = 4.6 m'));
+    expect(shown).toEqual(expect.arrayContaining(['family', 'basinLength', 'baffleHeight', 'endSillHeight']));
+    expect(shown).not.toEqual(expect.arrayContaining(['sillToothWidth']));
+    expect(shown).not.toContain('designDischarge');
+  });
+  it('when no family fits, no sizes are shown', () => {
+    const shown = names(fence('basin', 'y1 = 0.5 m', 'V1 = 3.3 m/s', 'TW = 1.0 m'));
+    expect(shown).toContain('family');
+    expect(shown).not.toContain('basinLength');
+    expect(shown).not.toContain('chuteBlockHeight');
+  });
+});
