@@ -130,7 +130,7 @@ export function evaluateCase(markdown: string, files: BlockFiles = NO_FILES): Ca
     issues.push(...resolved.issues);
     if (issues.length) return finish(node, failed(node, issues, resolved.unitSystem));
 
-    const solved = solve(spec.kind, resolved.inputs);
+    const solved = solve(spec.kind, resolved.inputs, { unitSystem: resolved.unitSystem });
     const lineFor = (field?: string) => (field !== undefined ? resolved.lineOf[field] : undefined) ?? node.source.line;
     if (!solved.ok) {
       const error = solved.error;

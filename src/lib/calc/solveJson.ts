@@ -78,7 +78,7 @@ export function solveJson(kind: string, inputs: Readonly<Record<string, JsonInpu
   const keyOfLine = (line: number) => keys[line - 2] ?? 'inputs';
   for (const issue of resolved.issues) issues.push({ field: keyOfLine(issue.line), message: issue.message, ...(issue.hint ? { hint: issue.hint } : {}) });
   if (issues.length) return { ok: false, issues };
-  const solved = solve(spec.kind, resolved.inputs);
+  const solved = solve(spec.kind, resolved.inputs, { unitSystem: resolved.unitSystem });
   if (!solved.ok) {
     const line = solved.error.field !== undefined ? resolved.lineOf[solved.error.field] : undefined;
     return { ok: false, issues: [{ field: line ? keyOfLine(line) : solved.error.field ?? 'inputs', message: solved.error.message }] };

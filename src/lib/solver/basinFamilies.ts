@@ -54,12 +54,12 @@ export interface BasinFamily {
   readonly id: BasinFamilyId;
   /** Name in results, e.g. "USBR III". */
   readonly label: string;
-  /** The stated range, in words (SI with the source's US figures). */
-  readonly range: string;
+  /** The stated range, in words, in the block's units (SI with the source's US figures). */
+  readonly range: (say: Say) => string;
   /** The relations used, in words. */
   readonly relations: string;
   /** Why a flow is outside the family's range, or null when it is inside. */
-  readonly outside: (f: ToeFlow) => string | null;
+  readonly outside: (f: ToeFlow, say: Say) => string | null;
   /** Basin length (m). */
   readonly length: (f: ToeFlow) => number;
   /** Required tailwater as a multiple of y2. */
@@ -69,6 +69,15 @@ export interface BasinFamily {
   readonly baffled: boolean;
 }
 
+/** One foot in metres (exact, NIST SP 811, 2008, Appendix B). */
+const FT = 0.3048;
+
+/** Says an SI value in the block's units: `18.4 m/s`, `60.4 ft/s`. */
+export type Say = ((valueSI: number, quantity: 'length' | 'velocity' | 'unitDischarge' | 'discharge', significant?: number) => string) & {
+  /** A limit the source gives in US units: `18.29 m/s (60 ft/s)` in SI, `60 ft/s` in US. */
+  readonly limit: (valueSI: number, quantity: 'velocity' | 'unitDischarge', source: string) => string;
+};
+
 /** Limits of the stated ranges (SI; the source's US figures in the comments). */
 export const BASIN_LIMITS = {
   /** Below this the jump is undular and no basin family applies. */
@@ -76,12 +85,12 @@ export const BASIN_LIMITS = {
   /** Oscillating range of Basin IV. */
   oscillatingMin: 2.5,
   oscillatingMax: 4.5,
-  /** Basin III inflow velocity limit, 60 ft/s. */
-  usbr3Velocity: 18.3,
+  /** Basin III inflow velocity limit, 60 ft/s (the source's figure, converted exactly). */
+  usbr3Velocity: 60 * FT,
   /** Basin III unit discharge limit, 200 ft²/s. */
-  usbr3UnitDischarge: 18.6,
+  usbr3UnitDischarge: 200 * FT * FT,
   /** Basin II unit discharge limit, 500 ft²/s. */
-  usbr2UnitDischarge: 46.5,
+  usbr2UnitDischarge: 500 * FT * FT,
   /** SAF upper Froude number. */
   safFrMax: 17,
 } as const;
@@ -101,7 +110,7 @@ export const FAMILIES: Readonly<Record<BasinFamilyId, BasinFamily>> = {
   natural: {
     id: 'natural',
     label: 'Natural jump (USBR I)',
-    range: `Fr1 ≥ ${L.frMin}`,
+    range: () => `Fr1 ≥ ${L.frMin}`,
     relations: `L = ${NATURAL_LENGTH}·y2; TW = 1.0·y2; no blocks or sill`,
     outside: (f) => below(f, L.frMin),
     length: (f) => NATURAL_LENGTH * f.y2,
@@ -112,9 +121,9 @@ export const FAMILIES: Readonly<Record<BasinFamilyId, BasinFamily>> = {
   usbr2: {
     id: 'usbr2',
     label: 'USBR II',
-    range: `Fr1 ≥ ${L.oscillatingMax}, q ≤ ${L.usbr2UnitDischarge} m²/s (500 ft²/s); for V1 above ${L.usbr3Velocity} m/s`,
+    range: (say) => `Fr1 ≥ ${L.oscillatingMax}, q ≤ ${say.limit(L.usbr2UnitDischarge, 'unitDischarge', '500 ft²/s')}; for V1 above ${say.limit(L.usbr3Velocity, 'velocity', '60 ft/s')}`,
     relations: 'L = 4.3·y2; TW = 1.05·y2; chute blocks h = w = s = y1; dentated sill h = 0.2·y2, teeth w = s = 0.15·y2',
-    outside: (f) => below(f, L.oscillatingMax) ?? (f.q > L.usbr2UnitDischarge ? `q = ${fmt(f.q)} m²/s is above ${L.usbr2UnitDischarge} m²/s` : null),
+    outside: (f, say) => below(f, L.oscillatingMax) ?? (f.q > L.usbr2UnitDischarge ? `q = ${say(f.q, 'unitDischarge', 4)} is above ${say.limit(L.usbr2UnitDischarge, 'unitDischarge', '500 ft²/s')}` : null),
     length: (f) => 4.3 * f.y2,
     tailwaterFactor: () => 1.05,
     elements: (f) => ({ ...none, chuteBlockHeight: f.y1, chuteBlockWidth: f.y1, chuteBlockSpacing: f.y1, endSillHeight: 0.2 * f.y2, sillToothWidth: 0.15 * f.y2, sillToothSpacing: 0.15 * f.y2 }),
@@ -123,12 +132,12 @@ export const FAMILIES: Readonly<Record<BasinFamilyId, BasinFamily>> = {
   usbr3: {
     id: 'usbr3',
     label: 'USBR III',
-    range: `Fr1 ≥ ${L.oscillatingMax}, V1 ≤ ${L.usbr3Velocity} m/s (60 ft/s), q ≤ ${L.usbr3UnitDischarge} m²/s (200 ft²/s)`,
+    range: (say) => `Fr1 ≥ ${L.oscillatingMax}, V1 ≤ ${say.limit(L.usbr3Velocity, 'velocity', '60 ft/s')}, q ≤ ${say.limit(L.usbr3UnitDischarge, 'unitDischarge', '200 ft²/s')}`,
     relations: 'L = 2.7·y2; TW = 1.0·y2; chute blocks h = w = s = y1; baffle piers h3 = y1(0.168·Fr1 + 0.63), w = s = 0.75·h3, at 0.8·y2; end sill h4 = y1(1 + Fr1/18)',
-    outside: (f) =>
+    outside: (f, say) =>
       below(f, L.oscillatingMax) ??
-      (f.v1 > L.usbr3Velocity ? `V1 = ${fmt(f.v1)} m/s is above ${L.usbr3Velocity} m/s (baffle piers would cavitate)` : null) ??
-      (f.q > L.usbr3UnitDischarge ? `q = ${fmt(f.q)} m²/s is above ${L.usbr3UnitDischarge} m²/s` : null),
+      (f.v1 > L.usbr3Velocity ? `V1 = ${say(f.v1, 'velocity', 4)} is above ${say.limit(L.usbr3Velocity, 'velocity', '60 ft/s')} (baffle piers would cavitate)` : null) ??
+      (f.q > L.usbr3UnitDischarge ? `q = ${say(f.q, 'unitDischarge', 4)} is above ${say.limit(L.usbr3UnitDischarge, 'unitDischarge', '200 ft²/s')}` : null),
     length: (f) => 2.7 * f.y2,
     tailwaterFactor: () => 1,
     elements: (f) => {
@@ -140,7 +149,7 @@ export const FAMILIES: Readonly<Record<BasinFamilyId, BasinFamily>> = {
   usbr4: {
     id: 'usbr4',
     label: 'USBR IV',
-    range: `${L.oscillatingMin} ≤ Fr1 ≤ ${L.oscillatingMax}`,
+    range: () => `${L.oscillatingMin} ≤ Fr1 ≤ ${L.oscillatingMax}`,
     relations: `L = ${NATURAL_LENGTH}·y2; TW = 1.1·y2; chute blocks h = 2·y1, w = y1, s = 2.5·y1; end sill h = 1.25·y1`,
     outside: (f) => below(f, L.oscillatingMin) ?? above(f, L.oscillatingMax),
     length: (f) => NATURAL_LENGTH * f.y2,
@@ -151,7 +160,7 @@ export const FAMILIES: Readonly<Record<BasinFamilyId, BasinFamily>> = {
   saf: {
     id: 'saf',
     label: 'SAF',
-    range: `${L.frMin} ≤ Fr1 ≤ ${L.safFrMax}; small structures`,
+    range: () => `${L.frMin} ≤ Fr1 ≤ ${L.safFrMax}; small structures`,
     relations: 'L = 4.5·y2/Fr1^0.76; TW = (1.10 − Fr1²/120)·y2 to Fr1 5.5, 0.85·y2 to 11, (1.00 − Fr1²/800)·y2 to 17; chute and floor blocks h = y1, w = s = 0.75·y1, floor blocks at L/3; end sill h = 0.07·y2',
     outside: (f) => below(f, L.frMin) ?? above(f, L.safFrMax),
     length: (f) => (4.5 * f.y2) / f.fr1 ** 0.76,

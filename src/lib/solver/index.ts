@@ -7,7 +7,7 @@ export type { SolverError, SolverFailure, SolverResult, SolverSuccess, Warning }
 export { STANDARD_GRAVITY, WATER_DENSITY } from './constants';
 
 // Uniform entry and the kind metadata contract.
-export { solve } from './solve';
+export { solve, type SolveOptions } from './solve';
 export { getKindSpec, isSolverKind, KIND_SPECS, SOLVER_KINDS, type SolverKind } from './kinds';
 export type {
   FieldCondition,

@@ -5,6 +5,12 @@ import { DAM_BREAK_SPEC, runDamBreak } from './damBreakKind';
 import { HYDRAULIC_JUMP_SPEC, runHydraulicJump } from './hydraulicJumpKind';
 import type { InputValues, KindSpec, SolveOutput } from './kindSpec';
 import type { SolverResult } from './result';
+import type { UnitSystem } from './units';
+
+/** What a runner knows besides its inputs: the units its messages quote figures in. */
+export interface SolveContext {
+  readonly unitSystem: UnitSystem;
+}
 import { runSluiceGate, SLUICE_GATE_SPEC } from './sluiceGateKind';
 import { runStillingBasin, STILLING_BASIN_SPEC } from './stillingBasinKind';
 import { runSurge, SURGE_SPEC } from './surgeKind';
@@ -29,7 +35,7 @@ export const KIND_SPECS: Readonly<Record<SolverKind, KindSpec>> = {
 };
 
 /** Runner of each kind on validated inputs (internal to the solver). */
-export const KIND_RUNNERS: Readonly<Record<SolverKind, (v: InputValues) => SolverResult<SolveOutput>>> = {
+export const KIND_RUNNERS: Readonly<Record<SolverKind, (v: InputValues, context: SolveContext) => SolverResult<SolveOutput>>> = {
   'hydraulic-jump': runHydraulicJump,
   'toe-depth': runToeDepth,
   'sluice-gate': runSluiceGate,

@@ -5,7 +5,14 @@
 import { isSolverKind, KIND_RUNNERS, KIND_SPECS, SOLVER_KINDS } from './kinds';
 import type { KindSpec, OutputValue, SolveOutput } from './kindSpec';
 import { fail, type SolverResult } from './result';
+import type { UnitSystem } from './units';
 import { validateInputs } from './validateInputs';
+
+/** How a calculation is asked for beyond its inputs. */
+export interface SolveOptions {
+  /** Units of the figures quoted in messages (inputs and outputs stay SI); SI by default. */
+  readonly unitSystem?: UnitSystem;
+}
 
 /**
  * Solves one calculation. Inputs are SI numbers (plus choice strings, lists and tables) keyed
@@ -13,14 +20,14 @@ import { validateInputs } from './validateInputs';
  *
  * @example solve('hydraulic-jump', { shape: 'rectangular', width: 3, discharge: 15, y1: 0.5 })
  */
-export function solve(kind: string, inputs: unknown): SolverResult<SolveOutput> {
+export function solve(kind: string, inputs: unknown, options: SolveOptions = {}): SolverResult<SolveOutput> {
   if (!isSolverKind(kind)) {
     return fail('unknown-kind', `Unknown calculation "${typeof kind === 'string' ? kind : typeof kind}". Kinds: ${SOLVER_KINDS.join(', ')}.`);
   }
   const spec = KIND_SPECS[kind];
   const checked = validateInputs(spec, inputs);
   if (!checked.ok) return checked;
-  const r = KIND_RUNNERS[kind](checked.value);
+  const r = KIND_RUNNERS[kind](checked.value, { unitSystem: options.unitSystem === 'US' ? 'US' : 'SI' });
   if (!r.ok) return r;
   return { ok: true, value: shape(spec, r.value), warnings: [...checked.warnings, ...r.warnings] };
 }

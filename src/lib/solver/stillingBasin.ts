@@ -5,9 +5,10 @@
  * elements. The sequent depth is Bélanger's (rectangular basin): Chow, V. T., 1959,
  * Open-Channel Hydraulics, §15-2, eq. 15-3. Pure: no I/O, never throws for user input.
  */
-import { BASIN_FAMILIES, BASIN_LIMITS, FAMILIES, SELECTION_ORDER, type BasinElements, type BasinFamilyId, type ToeFlow } from './basinFamilies';
+import { BASIN_FAMILIES, BASIN_LIMITS, FAMILIES, SELECTION_ORDER, type BasinElements, type BasinFamilyId, type Say, type ToeFlow } from './basinFamilies';
 import { fail, succeed, type SolverResult, type Warning } from './result';
 import { belangerRatio } from './sequentDepth';
+import { displayUnit, fromSI, type UnitSystem } from './units';
 
 /** Default limit of (TW − y2)/y2 above which the jump counts as drowned (common practice). */
 export const DEFAULT_MAX_SUBMERGENCE = 0.2;
@@ -26,6 +27,8 @@ export interface StillingBasinInput {
   readonly family: BasinFamilyId | 'auto';
   readonly maxSubmergence: number;
   readonly g: number;
+  /** Units of the figures in messages (default SI). */
+  readonly unitSystem?: UnitSystem;
 }
 
 /** One row of the screening table. */
@@ -70,8 +73,17 @@ export interface StillingBasinResult extends BasinElements {
 
 const fmt = (x: number, digits = 3) => Number(x.toPrecision(digits)).toString();
 
+/** Says SI values in `system`'s display units, to 3 significant figures unless asked. */
+export function sayIn(system: UnitSystem): Say {
+  const say = (x: number, quantity: Parameters<Say>[1], significant = 3) => {
+    const unit = displayUnit(quantity, system);
+    return unit ? `${fmt(fromSI(x, unit), significant)} ${unit.display}` : fmt(x, significant);
+  };
+  return Object.assign(say, { limit: (x: number, quantity: 'velocity' | 'unitDischarge', source: string) => (system === 'US' ? source : `${say(x, quantity, 4)} (${source})`) });
+}
+
 /** Broadcasts lists of length 1 to `n` flows; null when a length does not match. */
-function flowsOf(input: StillingBasinInput): SolverResult<{ flows: ToeFlow[]; tailwater: number[]; discharges: number[] | null }> {
+function flowsOf(input: StillingBasinInput, say: Say): SolverResult<{ flows: ToeFlow[]; tailwater: number[]; discharges: number[] | null }> {
   const lists = { y1: input.y1, V1: input.v1, TW: input.tailwater, ...(input.discharges ? { Q: input.discharges } : {}) };
   const n = Math.max(...Object.values(lists).map((l) => l.length));
   for (const [name, list] of Object.entries(lists)) {
@@ -90,7 +102,7 @@ function flowsOf(input: StillingBasinInput): SolverResult<{ flows: ToeFlow[]; ta
     if (!(v1 > 0 && Number.isFinite(v1))) return fail('invalid-input', `The inflow velocity must be a positive number (flow ${i + 1}).`, 'velocities');
     const fr1 = v1 / Math.sqrt(input.g * y1);
     if (!(fr1 > 1)) {
-      return fail('subcritical-inflow', `The inflow is not supercritical${n > 1 ? ` at flow ${i + 1}` : ''}: Fr1 = ${fmt(fr1)} (y1 = ${fmt(y1)} m, V1 = ${fmt(v1)} m/s). A jump, and so a stilling basin, needs Fr1 > 1 at the toe; check y1 and the velocity or discharge.`, 'y1');
+      return fail('subcritical-inflow', `The inflow is not supercritical${n > 1 ? ` at flow ${i + 1}` : ''}: Fr1 = ${fmt(fr1)} (y1 = ${say(y1, 'length')}, V1 = ${say(v1, 'velocity')}). A jump, and so a stilling basin, needs Fr1 > 1 at the toe; check y1 and the velocity or discharge.`, 'y1');
     }
     flows.push({ y1, v1, q: v1 * y1, fr1, y2: y1 * belangerRatio(fr1) });
   }
@@ -104,16 +116,17 @@ function flowsOf(input: StillingBasinInput): SolverResult<{ flows: ToeFlow[]; ta
 /** Screens every family against the flows and sizes the chosen one; see the module comment. */
 export function screenStillingBasins(input: StillingBasinInput): SolverResult<StillingBasinResult> {
   if (!(input.g > 0)) return fail('invalid-input', 'Gravity must be positive.', 'g');
-  const parsed = flowsOf(input);
+  const say = sayIn(input.unitSystem ?? 'SI');
+  const parsed = flowsOf(input, say);
   if (!parsed.ok) return parsed;
   const { flows, tailwater, discharges } = parsed.value;
   const n = flows.length;
-  const flowName = (i: number) => (discharges ? `Q = ${fmt(discharges[i]!)} m³/s` : n > 1 ? `flow ${i + 1}` : 'the flow');
+  const flowName = (i: number) => (discharges ? `Q = ${say(discharges[i]!, 'discharge')}` : n > 1 ? `flow ${i + 1}` : 'the flow');
   const flowPlace = (i: number) => (n > 1 || discharges ? ` at ${flowName(i)}` : '');
 
   const rows = BASIN_FAMILIES.map((id) => {
     const fam = FAMILIES[id];
-    const outside = flows.map((f, i) => ({ i, why: fam.outside(f) })).filter((o) => o.why !== null);
+    const outside = flows.map((f, i) => ({ i, why: fam.outside(f, say) })).filter((o) => o.why !== null);
     const lengths = flows.map((f) => fam.length(f));
     const design = lengths.indexOf(Math.max(...lengths));
     const margins = flows.map((f, i) => tailwater[i]! - fam.tailwaterFactor(f) * f.y2);
@@ -132,7 +145,7 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
         minMargin: margins[critical]!,
         criticalDischarge: discharges ? discharges[critical]! : null,
         why,
-        range: fam.range,
+        range: fam.range(say),
         relations: fam.relations,
       } satisfies FamilyScreening,
       design,
@@ -160,11 +173,11 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
   } else {
     const fam = FAMILIES[chosen.id];
     if (chosen.outside.length) {
-      warnings.push({ code: 'family-outside-range', message: `The ${fam.label} basin is sized as asked, but the case is outside its range: ${chosen.row.why} (stated range ${fam.range}).`, field: 'family' });
+      warnings.push({ code: 'family-outside-range', message: `The ${fam.label} basin is sized as asked, but the case is outside its range: ${chosen.row.why} (stated range ${fam.range(say)}).`, field: 'family' });
     }
     const short = chosen.margins.map((m, i) => ({ m, i })).filter((x) => x.m < 0);
     if (short.length) {
-      const list = short.slice(0, 5).map(({ m, i }) => `${flowName(i)} (TW ${fmt(tailwater[i]!)} m, needs ${fmt(fam.tailwaterFactor(flows[i]!) * flows[i]!.y2)} m, short by ${fmt(-m)} m)`).join('; ');
+      const list = short.slice(0, 5).map(({ m, i }) => `${flowName(i)} (TW ${say(tailwater[i]!, 'length')}, needs ${say(fam.tailwaterFactor(flows[i]!) * flows[i]!.y2, 'length')}, short by ${say(-m, 'length')})`).join('; ');
       warnings.push({ code: 'tailwater-too-low', message: `The tailwater is below what the ${fam.label} basin needs at ${short.length} of ${n} flows, so the jump would sweep out of the basin: ${list}${short.length > 5 ? '; …' : ''}. Lower the apron or raise the tailwater.`, field: 'tailwater' });
     }
     const drowned = flows.map((f, i) => ({ s: (tailwater[i]! - f.y2) / f.y2, i })).filter((x) => x.s > input.maxSubmergence);
@@ -174,7 +187,7 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
     }
     const fastest = flows.reduce((a, f) => (f.v1 > a.v1 ? f : a), flows[0]!);
     if (fam.baffled && fastest.v1 > BASIN_LIMITS.usbr3Velocity) {
-      warnings.push({ code: 'baffle-cavitation', message: `V1 = ${fmt(fastest.v1)} m/s is above ${BASIN_LIMITS.usbr3Velocity} m/s (60 ft/s): baffle piers or floor blocks in the jump risk cavitation damage. The USBR monograph uses Basin II (no baffles) above this velocity.`, field: 'velocities' });
+      warnings.push({ code: 'baffle-cavitation', message: `V1 = ${say(fastest.v1, 'velocity')} is above ${say.limit(BASIN_LIMITS.usbr3Velocity, 'velocity', '60 ft/s')}: baffle piers or floor blocks in the jump risk cavitation damage. The USBR monograph uses Basin II (no baffles) above this velocity.`, field: 'velocities' });
     }
   }
 

@@ -4,6 +4,7 @@
 import { BASIN_FAMILIES, FAMILIES } from './basinFamilies';
 import { GRAVITY_FIELD, numberOutput, positiveField } from './inputFields';
 import type { InputFieldSpec, InputValues, KindSpec, OutputFieldSpec, SolveOutput } from './kindSpec';
+import type { SolveContext } from './kinds';
 import type { Quantity } from './quantity';
 import { fail, type SolverResult } from './result';
 import { DEFAULT_MAX_SUBMERGENCE, MAX_BASIN_FLOWS, screenStillingBasins, type StillingBasinInput } from './stillingBasin';
@@ -97,7 +98,7 @@ function velocities(v: InputValues, y1: readonly number[]): SolverResult<readonl
 }
 
 /** Runs the kind on validated values. */
-export function runStillingBasin(v: InputValues): SolverResult<SolveOutput> {
+export function runStillingBasin(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
   const tailwater = v['tailwater'] as readonly number[] | undefined;
   if (tailwater === undefined) {
     return fail('missing-input', 'A basin is screened against the tailwater it will have: give TW (one depth above the apron, a list with one per flow, or a tailwater block\'s check.TW).', 'tailwater');
@@ -106,7 +107,7 @@ export function runStillingBasin(v: InputValues): SolverResult<SolveOutput> {
   const v1 = velocities(v, y1);
   if (!v1.ok) return v1;
   const discharges = v['discharges'] as readonly number[] | undefined;
-  const input: StillingBasinInput = { y1, v1: v1.value, tailwater, ...(discharges ? { discharges } : {}), family: v['family'] as StillingBasinInput['family'], maxSubmergence: v['maxSubmergence'] as number, g: v['g'] as number };
+  const input: StillingBasinInput = { y1, v1: v1.value, tailwater, ...(discharges ? { discharges } : {}), family: v['family'] as StillingBasinInput['family'], maxSubmergence: v['maxSubmergence'] as number, g: v['g'] as number, unitSystem: context.unitSystem };
   const r = screenStillingBasins(input);
   if (!r.ok) return r;
   const { rows, ...values } = r.value;

@@ -224,7 +224,7 @@ describe('stilling-basin blocks', () => {
     expect(html).toMatch(/<th scope="row" class="min-w-32 font-normal text-ink">USBR III<\/th>/);
     const notes = html.slice(html.indexOf('data-testid="row-notes"'));
     expect(notes).toMatch(/<dt class="font-semibold text-ink">USBR III<\/dt>/);
-    expect(notes).toContain('Stated range: </span>Fr1 ≥ 4.5, V1 ≤ 18.3 m/s (60 ft/s)');
+    expect(notes).toContain('Stated range: </span>Fr1 ≥ 4.5, V1 ≤ 18.29 m/s (60 ft/s), q ≤ 18.58 m²/s (200 ft²/s)');
     expect(notes).toMatch(/Relations: <\/span>L = 2\.7·y2; TW = 1\.0·y2;/);
   });
 });

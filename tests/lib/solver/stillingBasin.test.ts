@@ -50,26 +50,26 @@ describe('family ranges at their boundaries', () => {
     expect(fits(outside, label, 0.1)).toBe('no');
   });
 
-  it('USBR III stops at V1 = 18.3 m/s (60 ft/s) and says why', () => {
+  it('USBR III stops at V1 = 60 ft/s (18.288 m/s) and says why', () => {
     // y1 = 1.2 m, Fr1 ≥ 4.5 needs V1 ≥ 15.4 m/s; q stays below 18.6 m²/s only up to V1 = 15.5 m/s,
     // so use a shallower toe to reach the velocity limit first.
     const at = (v1: number) => row(run({ y1: [0.9], v1: [v1] }), 'USBR III');
-    expect(at(18.3).fits).toBe('yes');
-    const out = at(18.4);
+    expect(at(18.28).fits).toBe('yes');
+    const out = at(18.3);
     expect(out.fits).toBe('no');
-    expect(out.why).toMatch(/V1 = 18\.4 m\/s is above 18\.3 m\/s/);
+    expect(out.why).toBe('V1 = 18.3 m/s is above 18.29 m/s (60 ft/s) (baffle piers would cavitate)');
   });
 
-  it('USBR III stops at q = 18.6 m²/s (200 ft²/s)', () => {
+  it('USBR III stops at q = 200 ft²/s (18.58 m²/s)', () => {
     const at = (q: number) => row(run({ y1: [1.1], v1: [q / 1.1] }), 'USBR III');
-    expect(at(18.6).fits).toBe('yes');
-    expect(at(18.7).why).toMatch(/q = 18\.7 m²\/s is above 18\.6/);
+    expect(at(18.58).fits).toBe('yes');
+    expect(at(18.6).why).toBe('q = 18.6 m²/s is above 18.58 m²/s (200 ft²/s)');
   });
 
-  it('USBR II stops at q = 46.5 m²/s (500 ft²/s)', () => {
+  it('USBR II stops at q = 500 ft²/s (46.45 m²/s)', () => {
     const at = (q: number) => row(run({ y1: [1.5], v1: [q / 1.5] }), 'USBR II');
-    expect(at(46.5).fits).toBe('yes');
-    expect(at(46.6).fits).toBe('no');
+    expect(at(46.45).fits).toBe('yes');
+    expect(at(46.46).fits).toBe('no');
   });
 
   it('names the first flow outside the range and counts the others', () => {
@@ -205,6 +205,17 @@ describe('warnings engineers expect', () => {
     const r = run({ v1: [vFor(3, 0.5)], family: 'usbr3' });
     expect(r.value.family).toBe('USBR III');
     expect(r.warnings.find((w) => w.code === 'family-outside-range')?.message).toContain('Fr1 = 3 is below 4.5');
+  });
+});
+
+describe('messages in the block\'s units', () => {
+  it('quote US figures in a US block, and the source\'s own limit', () => {
+    const r = run({ y1: [0.3048], v1: [20 * 0.3048 * 3.2], tailwater: [0.5], discharges: [50 * 0.0283168], family: 'usbr3', unitSystem: 'US' });
+    const messages = r.warnings.map((w) => w.message).join(' ');
+    expect(messages).toContain('Q = 50 ft³/s (TW 1.64 ft, needs');
+    expect(row(r, 'USBR III').why).toBe('V1 = 64 ft/s is above 60 ft/s (baffle piers would cavitate) at Q = 50 ft³/s');
+    expect(messages).toContain('V1 = 64 ft/s is above 60 ft/s:');
+    expect(messages).not.toMatch(/\d m\b|m\/s|m³/);
   });
 });
 
