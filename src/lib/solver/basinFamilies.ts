@@ -14,6 +14,7 @@
  * high end of the Froude range (4.3·y2 and 2.7·y2); lower down the curves give slightly less,
  * so these are on the long side. Pure: no I/O.
  */
+import type { Say } from './say';
 
 /** Ids of the families, in the order of the screening table. */
 export const BASIN_FAMILIES = ['natural', 'usbr2', 'usbr3', 'usbr4', 'saf'] as const;
@@ -71,12 +72,6 @@ export interface BasinFamily {
 
 /** One foot in metres (exact, NIST SP 811, 2008, Appendix B). */
 const FT = 0.3048;
-
-/** Says an SI value in the block's units: `18.4 m/s`, `60.4 ft/s`. */
-export type Say = ((valueSI: number, quantity: 'length' | 'velocity' | 'unitDischarge' | 'discharge', significant?: number) => string) & {
-  /** A limit the source gives in US units: `18.29 m/s (60 ft/s)` in SI, `60 ft/s` in US. */
-  readonly limit: (valueSI: number, quantity: 'velocity' | 'unitDischarge', source: string) => string;
-};
 
 /** Limits of the stated ranges (SI; the source's US figures in the comments). */
 export const BASIN_LIMITS = {

@@ -5,10 +5,11 @@
  * elements. The sequent depth is Bélanger's (rectangular basin): Chow, V. T., 1959,
  * Open-Channel Hydraulics, §15-2, eq. 15-3. Pure: no I/O, never throws for user input.
  */
-import { BASIN_FAMILIES, BASIN_LIMITS, FAMILIES, SELECTION_ORDER, type BasinElements, type BasinFamilyId, type Say, type ToeFlow } from './basinFamilies';
+import { BASIN_FAMILIES, BASIN_LIMITS, FAMILIES, SELECTION_ORDER, type BasinElements, type BasinFamilyId, type ToeFlow } from './basinFamilies';
 import { fail, succeed, type SolverResult, type Warning } from './result';
 import { belangerRatio } from './sequentDepth';
-import { displayUnit, fromSI, type UnitSystem } from './units';
+import { sayIn, type Say } from './say';
+import type { UnitSystem } from './units';
 
 /** Default limit of (TW − y2)/y2 above which the jump counts as drowned (common practice). */
 export const DEFAULT_MAX_SUBMERGENCE = 0.2;
@@ -72,15 +73,6 @@ export interface StillingBasinResult extends BasinElements {
 }
 
 const fmt = (x: number, digits = 3) => Number(x.toPrecision(digits)).toString();
-
-/** Says SI values in `system`'s display units, to 3 significant figures unless asked. */
-export function sayIn(system: UnitSystem): Say {
-  const say = (x: number, quantity: Parameters<Say>[1], significant = 3) => {
-    const unit = displayUnit(quantity, system);
-    return unit ? `${fmt(fromSI(x, unit), significant)} ${unit.display}` : fmt(x, significant);
-  };
-  return Object.assign(say, { limit: (x: number, quantity: 'velocity' | 'unitDischarge', source: string) => (system === 'US' ? source : `${say(x, quantity, 4)} (${source})`) });
-}
 
 /** Broadcasts lists of length 1 to `n` flows; null when a length does not match. */
 function flowsOf(input: StillingBasinInput, say: Say): SolverResult<{ flows: ToeFlow[]; tailwater: number[]; discharges: number[] | null }> {

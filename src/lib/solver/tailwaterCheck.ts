@@ -12,11 +12,13 @@ import { froudeNumber } from './froudeNumber';
 import { JUMP_TYPE_BOUNDS } from './jumpType';
 import { normalDepth } from './normalDepth';
 import { fail, type SolverResult, type Warning } from './result';
+import { sayIn } from './say';
 import { type Section, sectionFullDepth, validateSection } from './section';
 import { momentumFunction } from './momentumFunction';
 import { sequentOfSupercritical } from './sequentDepth';
 import { DEFAULT_CONTRACTION_COEFFICIENT } from './sluiceGate';
 import { interpolateRating, type RatingTable, validateRatingTable } from './tailwaterRating';
+import type { UnitSystem } from './units';
 import { area } from './sectionGeometry';
 import { toeDepthCore } from './toeDepth';
 import { checkNonNegative, checkPhysics, checkPositive, describeValue } from './validate';
@@ -52,6 +54,8 @@ export interface TailwaterCheckInput {
   readonly tolerance?: number;
   /** Gravity, m/s². */
   readonly g?: number;
+  /** Units of the figures in messages (default SI). */
+  readonly unitSystem?: UnitSystem;
 }
 
 /** Where the jump sits for one flow. */
@@ -162,9 +166,10 @@ export function solveTailwaterCheck(input: TailwaterCheckInput): SolverResult<Ta
     rows[i] = row(q, y1, fr1, y2, tw, margin, ratio, Number.isFinite(lowering) ? lowering : null, state);
   }
   const warnings: Warning[] = [];
+  const say = sayIn(input.unitSystem ?? 'SI');
   const n = discharges.length;
   if (sweptOut > 0) {
-    const lowering = Number.isFinite(maxLowering) ? ` The largest apron lowering found is ${maxLowering.toPrecision(3)} m.` : '';
+    const lowering = Number.isFinite(maxLowering) ? ` The largest apron lowering found is ${say(maxLowering, 'length')}.` : '';
     const none = noLowering > 0 ? ` For ${noLowering} of them no apron lowering holds the jump within the section (apronLowering is empty).` : '';
     warnings.push({ code: 'jump-swept-out', message: `At ${sweptOut} of ${n} flows the tailwater is below the sequent depth and the jump is swept out of the basin.${lowering}${none}` });
   }
@@ -173,7 +178,7 @@ export function solveTailwaterCheck(input: TailwaterCheckInput): SolverResult<Ta
   if (surcharged > 0) warnings.push({ code: 'section-surcharged', message: `At ${surcharged} of ${n} flows the sequent depth would exceed the conduit crown; the open-channel momentum balance does not hold there.` });
   if (noTailwater > 0) {
     warnings.push(tailwater.method === 'table'
-      ? { code: 'rating-out-of-range', message: `${noTailwater} of ${n} flows lie outside the tailwater rating (${tailwater.discharge[0]}–${tailwater.discharge[tailwater.discharge.length - 1]} m³/s); the rating is not extrapolated, so those rows have no tailwater. Extend the table to cover them.`, field: 'tailwaterRating' }
+      ? { code: 'rating-out-of-range', message: `${noTailwater} of ${n} flows lie outside the tailwater rating (${say(tailwater.discharge[0]!, 'discharge')} to ${say(tailwater.discharge[tailwater.discharge.length - 1]!, 'discharge')}); the rating is not extrapolated, so those rows have no tailwater. Extend the table to cover them.`, field: 'tailwaterRating' }
       : { code: 'no-normal-depth', message: `${noTailwater} of ${n} flows exceed the largest open-channel discharge of the tailwater conduit (it would flow full), so no normal depth exists for them.` });
   }
   return {

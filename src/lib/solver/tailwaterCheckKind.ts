@@ -2,6 +2,7 @@
  * `tailwater-check` kind: metadata and adapter for {@link solveTailwaterCheck}.
  */
 import { GRAVITY_FIELD, numberOutput, positiveField, sectionFields, sectionFromValues } from './inputFields';
+import type { SolveContext } from './kinds';
 import type { InputValues, KindSpec, SolveOutput } from './kindSpec';
 import type { SolverResult } from './result';
 import { SECTION_SHAPES } from './section';
@@ -115,7 +116,7 @@ export function ratingDepths(rating: RatingInput, apronLevel: number | undefined
 const formatLevel = (x: number) => (Math.round(x * 1000) / 1000).toString();
 
 /** Runs the kind on validated values. */
-export function runTailwaterCheck(v: InputValues): SolverResult<SolveOutput> {
+export function runTailwaterCheck(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
   let discharges = v['discharges'] as readonly number[] | undefined;
   if (discharges === undefined) {
     const min = v['dischargeMin'] as number;
@@ -138,7 +139,7 @@ export function runTailwaterCheck(v: InputValues): SolverResult<SolveOutput> {
     if (!rating.ok) return rating;
     tailwater = { method: 'table', ...rating.value };
   }
-  const r = solveTailwaterCheck({ section: sectionFromValues(v), discharges, toe, tailwater, tolerance: v['tolerance'] as number, g: v['g'] as number });
+  const r = solveTailwaterCheck({ section: sectionFromValues(v), discharges, toe, tailwater, tolerance: v['tolerance'] as number, g: v['g'] as number, unitSystem: context.unitSystem });
   if (!r.ok) return r;
   const { rows, ...values } = r.value;
   return { ok: true, value: { kind: TAILWATER_CHECK_SPEC.kind, values, rows: rows as unknown as readonly Readonly<Record<string, number | string | null>>[] }, warnings: r.warnings };
