@@ -135,7 +135,7 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
         </table>
       </div>
       {table.rows.length > shown.length && (
-        <p className="mt-1 text-sm text-ink-soft">{`The first ${shown.length} of ${table.rows.length} flows are shown.`}</p>
+        <p className="mt-1 text-sm text-ink-soft">{`The first ${shown.length} of ${table.rows.length} ${block.kind === 'stilling-basin' ? 'families' : 'flows'} are shown.`}</p>
       )}
       <RowNotes block={block} />
     </div>

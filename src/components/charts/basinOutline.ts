@@ -131,7 +131,9 @@ export function basinOutlineLayout(input: BasinOutlineInput, box: Box = BASIN_BO
   if (![LB, y1, y2, tw].every((v) => finite(v)) || !(y2 > y1)) return null;
   const h1 = finite(input.chuteBlockHeight) ? input.chuteBlockHeight : null;
   const h4 = finite(input.endSillHeight) ? input.endSillHeight : null;
-  const baffle = finite(input.baffleHeight) && finite(input.baffleWidth) && finite(input.baffleDistance) && input.baffleDistance < LB ? { h: input.baffleHeight, w: input.baffleWidth, x: input.baffleDistance } : null;
+  // The sill's sloping face starts 2.4·h4 before the basin end, never before the toe.
+  const sillFoot = h4 === null ? LB : Math.max(0, LB - 2.4 * h4);
+  const baffle = finite(input.baffleHeight) && finite(input.baffleWidth) && finite(input.baffleDistance) && input.baffleDistance + input.baffleWidth <= sillFoot ? { h: input.baffleHeight, w: input.baffleWidth, x: input.baffleDistance } : null;
   const required = finite(input.requiredTailwater) ? input.requiredTailwater : null;
   const zMax = 1.08 * Math.max(y2, tw, required ?? 0, h1 ?? 0, h4 ?? 0, baffle?.h ?? 0);
 
@@ -166,7 +168,7 @@ export function basinOutlineLayout(input: BasinOutlineInput, box: Box = BASIN_BO
     surface.push([u * LB, y1 + (y2 - y1) * (1 - (1 - u) ** 2)]);
   }
 
-  const sill: Point[] | null = h4 === null ? null : [[LB - 2.4 * h4, 0], [LB - 0.4 * h4, h4], [LB, h4], [LB, 0]];
+  const sill: Point[] | null = h4 === null ? null : [[sillFoot, 0], [Math.max(sillFoot, LB - 0.4 * h4), h4], [LB, h4], [LB, 0]];
   const px = (x: number) => box.left + (x - xMin) * sx;
   const items = [
     ...(h1 !== null ? [{ key: 'chute' as const, x: 0, anchor: 'start' as const }] : []),

@@ -114,16 +114,18 @@ export function evaluateCase(markdown: string, files: BlockFiles = NO_FILES): Ca
       const result = evaluate(target, [...chain, node]);
       if (result.status === 'error') return { ok: false, message: `Block "${blockName}" has errors, so ${blockName}.${output} has no value yet.` };
       const names = (v: { name: string; symbol: string }) => v.name === output || v.symbol === output || v.name.toLowerCase() === output.toLowerCase();
-      const scalar = result.outputs.find(names);
+      // An output, then an input (as written, so `check.y1` stays the y1 a block was given),
+      // then a column of the results table as a list (`check.TW`).
+      const scalar = result.outputs.find(names) ?? result.inputs.find(names);
       const columnAt = scalar ? -1 : (result.table?.columns.findIndex(names) ?? -1);
       if (columnAt >= 0) return tableColumn(blockName, output, result, columnAt);
-      const found = scalar ?? result.inputs.find(names);
+      const found = scalar;
       if (!found || found.si === null) {
         const names = [...result.outputs, ...(result.table?.columns ?? [])].map((o) => o.symbol).filter((x, i, all) => all.indexOf(x) === i);
         const guess = closest(output, [...names, ...result.outputs.map((o) => o.name)]);
         return { ok: false, message: `Block "${blockName}" has no result "${output}". Results: ${names.join(', ')}.`, ...(guess ? { hint: `Did you mean ${blockName}.${guess}?` } : {}) };
       }
-      return { ok: true, value: found.si, quantity: Array.isArray(found.si) ? 'list' : (found.quantity as Quantity) };
+      return { ok: true, value: found.si, quantity: found.quantity as Quantity };
     };
     const resolved = resolveInputs(spec, node.source.assignments, lookup, readFile);
     visiting.delete(node);

@@ -94,8 +94,9 @@ const L = BASIN_LIMITS;
 const fmt = (x: number, digits = 3) => Number(x.toPrecision(digits)).toString();
 const none = { chuteBlockHeight: null, chuteBlockWidth: null, chuteBlockSpacing: null, baffleHeight: null, baffleWidth: null, baffleSpacing: null, baffleDistance: null, endSillHeight: null, sillToothWidth: null, sillToothSpacing: null } as const;
 
-const below = (f: ToeFlow, min: number) => (f.fr1 < min ? `Fr1 = ${fmt(f.fr1)} is below ${min}` : null);
-const above = (f: ToeFlow, max: number) => (f.fr1 > max ? `Fr1 = ${fmt(f.fr1)} is above ${max}` : null);
+// Four figures, so that a Froude number just past a limit never reads as the limit itself.
+const below = (f: ToeFlow, min: number) => (f.fr1 < min ? `Fr1 = ${fmt(f.fr1, 4)} is below ${min}` : null);
+const above = (f: ToeFlow, max: number) => (f.fr1 > max ? `Fr1 = ${fmt(f.fr1, 4)} is above ${max}` : null);
 
 /** Natural-jump length on a horizontal apron, Peterka 1958, Basin I: L ≈ 6.1·y2. */
 const NATURAL_LENGTH = 6.1;
@@ -165,8 +166,9 @@ export const FAMILIES: Readonly<Record<BasinFamilyId, BasinFamily>> = {
   },
 };
 
-/** SAF tailwater factor TW/y2 (Blaisdell 1948), by Froude range. */
-export function safTailwaterFactor(fr1: number): number {
+/** SAF tailwater factor TW/y2 (Blaisdell 1948), by Froude range; held at the range's ends outside 1.7–17. */
+export function safTailwaterFactor(froude: number): number {
+  const fr1 = Math.min(Math.max(froude, L.frMin), L.safFrMax);
   if (fr1 <= 5.5) return 1.1 - (fr1 * fr1) / 120;
   if (fr1 <= 11) return 0.85;
   return 1 - (fr1 * fr1) / 800;

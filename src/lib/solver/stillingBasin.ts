@@ -30,6 +30,8 @@ export interface StillingBasinInput {
   readonly g: number;
   /** Units of the figures in messages (default SI). */
   readonly unitSystem?: UnitSystem;
+  /** The input field the inflow was given by (`velocities`, `discharges`, `unitDischarges`), for messages. */
+  readonly inflowField?: string;
 }
 
 /** One row of the screening table. */
@@ -62,13 +64,13 @@ export interface StillingBasinResult extends BasinElements {
   readonly tailwaterFactor: number | null;
   /** The flow with the smallest tailwater margin, and its depths. */
   readonly governingDischarge: number | null;
-  readonly governingY1: number;
-  readonly governingY2: number;
+  readonly governingY1: number | null;
+  readonly governingY2: number | null;
   readonly requiredTailwater: number | null;
-  readonly tailwater: number;
+  readonly tailwater: number | null;
   readonly margin: number | null;
-  /** Flows at which the tailwater is below the requirement (the jump sweeps out). */
-  readonly sweptOutCount: number;
+  /** Flows at which the tailwater is below the requirement (the jump sweeps out); null when nothing is sized. */
+  readonly sweptOutCount: number | null;
   readonly rows: readonly FamilyScreening[];
 }
 
@@ -76,12 +78,14 @@ const fmt = (x: number, digits = 3) => Number(x.toPrecision(digits)).toString();
 
 /** Broadcasts lists of length 1 to `n` flows; null when a length does not match. */
 function flowsOf(input: StillingBasinInput, say: Say): SolverResult<{ flows: ToeFlow[]; tailwater: number[]; discharges: number[] | null }> {
+  const inflow = input.inflowField ?? 'velocities';
   const lists = { y1: input.y1, V1: input.v1, TW: input.tailwater, ...(input.discharges ? { Q: input.discharges } : {}) };
+  const fieldOf: Record<string, string> = { y1: 'y1', V1: inflow, TW: 'tailwater', Q: 'discharges' };
   const n = Math.max(...Object.values(lists).map((l) => l.length));
   for (const [name, list] of Object.entries(lists)) {
-    if (list.length === 0) return fail('invalid-input', `${name} has no values.`, name === 'TW' ? 'tailwater' : name === 'V1' ? 'velocities' : name === 'Q' ? 'discharges' : 'y1');
+    if (list.length === 0) return fail('invalid-input', `${name} has no values.`, fieldOf[name]);
     if (list.length !== 1 && list.length !== n) {
-      return fail('invalid-input', `The flows do not line up: ${Object.entries(lists).map(([k, l]) => `${k} has ${l.length}`).join(', ')}. Give each list one value per flow, or one value for all.`, name === 'TW' ? 'tailwater' : 'y1');
+      return fail('invalid-input', `The flows do not line up: ${Object.entries(lists).map(([k, l]) => `${k} has ${l.length}`).join(', ')}. Give each list one value per flow, or one value for all.`, fieldOf[name]);
     }
   }
   if (n > MAX_BASIN_FLOWS) return fail('invalid-input', `At most ${MAX_BASIN_FLOWS} flows can be screened at once; this block has ${n}.`, 'y1');
@@ -91,7 +95,7 @@ function flowsOf(input: StillingBasinInput, say: Say): SolverResult<{ flows: Toe
     const y1 = at(input.y1, i);
     const v1 = at(input.v1, i);
     if (!(y1 > 0 && Number.isFinite(y1))) return fail('invalid-input', `The toe depth must be a positive number (flow ${i + 1}).`, 'y1');
-    if (!(v1 > 0 && Number.isFinite(v1))) return fail('invalid-input', `The inflow velocity must be a positive number (flow ${i + 1}).`, 'velocities');
+    if (!(v1 > 0 && Number.isFinite(v1))) return fail('invalid-input', `The inflow velocity must be a positive number (flow ${i + 1}).`, inflow);
     const fr1 = v1 / Math.sqrt(input.g * y1);
     if (!(fr1 > 1)) {
       return fail('subcritical-inflow', `The inflow is not supercritical${n > 1 ? ` at flow ${i + 1}` : ''}: Fr1 = ${fmt(fr1)} (y1 = ${say(y1, 'length')}, V1 = ${say(v1, 'velocity')}). A jump, and so a stilling basin, needs Fr1 > 1 at the toe; check y1 and the velocity or discharge.`, 'y1');
@@ -115,6 +119,8 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
   const n = flows.length;
   const flowName = (i: number) => (discharges ? `Q = ${say(discharges[i]!, 'discharge')}` : n > 1 ? `flow ${i + 1}` : 'the flow');
   const flowPlace = (i: number) => (n > 1 || discharges ? ` at ${flowName(i)}` : '');
+  /** `At 2 of 7 flows`, or `At the flow` when there is one. */
+  const of = (k: number) => (n === 1 ? 'At the flow' : `At ${k} of ${n} flows`);
 
   const rows = BASIN_FAMILIES.map((id) => {
     const fam = FAMILIES[id];
@@ -133,7 +139,7 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
         family: fam.label,
         fits: outside.length ? 'no' : 'yes',
         basinLength: lengths[design]!,
-        tailwaterFactor: fam.tailwaterFactor(flows[design]!),
+        tailwaterFactor: fam.tailwaterFactor(flows[critical]!),
         minMargin: margins[critical]!,
         criticalDischarge: discharges ? discharges[critical]! : null,
         why,
@@ -155,9 +161,10 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
   if (slowest.fr1 < BASIN_LIMITS.frMin) {
     warnings.push({ code: 'undular-jump', message: `Fr1 = ${fmt(slowest.fr1)} is below ${BASIN_LIMITS.frMin}: the jump is undular, dissipates little and no basin family applies; the undulations run downstream and need freeboard (Peterka 1958).`, field: 'y1' });
   }
-  const oscillating = flows.filter((f) => f.fr1 >= BASIN_LIMITS.oscillatingMin && f.fr1 < BASIN_LIMITS.oscillatingMax).length;
-  if (oscillating > 0) {
-    warnings.push({ code: 'oscillating-jump', message: `At ${oscillating} of ${n} flows 2.5 ≤ Fr1 < 4.5 (oscillating jump): waves travel far downstream and erode banks. Basin IV's blocks reduce them; wave suppressors or a change of the toe depth out of this range may be needed (Peterka 1958, Basin IV).`, field: 'y1' });
+  const oscillating = flows.flatMap((f, i) => (f.fr1 >= BASIN_LIMITS.oscillatingMin && f.fr1 < BASIN_LIMITS.oscillatingMax ? [i] : []));
+  if (oscillating.length > 0) {
+    const which = n > 1 || discharges ? ` (${oscillating.slice(0, 5).map((i) => `${flowName(i)}: Fr1 = ${fmt(flows[i]!.fr1)}`).join('; ')}${oscillating.length > 5 ? '; …' : ''})` : '';
+    warnings.push({ code: 'oscillating-jump', message: `${of(oscillating.length)} 2.5 ≤ Fr1 < 4.5${which}, an oscillating jump: waves travel far downstream and erode banks. Basin IV's blocks reduce them; wave suppressors or a change of the toe depth out of this range may be needed (Peterka 1958, Basin IV).`, field: 'y1' });
   }
 
   if (!chosen) {
@@ -170,16 +177,16 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
     const short = chosen.margins.map((m, i) => ({ m, i })).filter((x) => x.m < 0);
     if (short.length) {
       const list = short.slice(0, 5).map(({ m, i }) => `${flowName(i)} (TW ${say(tailwater[i]!, 'length')}, needs ${say(fam.tailwaterFactor(flows[i]!) * flows[i]!.y2, 'length')}, short by ${say(-m, 'length')})`).join('; ');
-      warnings.push({ code: 'tailwater-too-low', message: `The tailwater is below what the ${fam.label} basin needs at ${short.length} of ${n} flows, so the jump would sweep out of the basin: ${list}${short.length > 5 ? '; …' : ''}. Lower the apron or raise the tailwater.`, field: 'tailwater' });
+      warnings.push({ code: 'tailwater-too-low', message: `The tailwater is below what the ${fam.label} basin needs ${n === 1 ? '' : `at ${short.length} of ${n} flows`}, so the jump would sweep out of the basin: ${list}${short.length > 5 ? '; and more' : ''}. Lower the apron or raise the tailwater.`, field: 'tailwater' });
     }
     const drowned = flows.map((f, i) => ({ s: (tailwater[i]! - f.y2) / f.y2, i })).filter((x) => x.s > input.maxSubmergence);
     if (drowned.length) {
       const worst = drowned.reduce((a, b) => (b.s > a.s ? b : a));
-      warnings.push({ code: 'excessive-submergence', message: `The tailwater drowns the jump at ${drowned.length} of ${n} flows (up to ${fmt(worst.s * 100, 2)} % above y2${flowPlace(worst.i)}, limit ${fmt(input.maxSubmergence * 100, 2)} %): the high-velocity jet can dive under the roller and scour beyond the basin, and a gate upstream may be drowned. Consider raising the apron.`, field: 'tailwater' });
+      warnings.push({ code: 'excessive-submergence', message: `The tailwater drowns the jump${n === 1 ? '' : ` at ${drowned.length} of ${n} flows`} (${n === 1 ? '' : 'up to '}${fmt(worst.s * 100)} % above y2${flowPlace(worst.i)}, limit ${fmt(input.maxSubmergence * 100)} %): the high-velocity jet can dive under the roller and scour beyond the basin, and a gate upstream may be drowned. Consider raising the apron.`, field: 'tailwater' });
     }
     const fastest = flows.reduce((a, f) => (f.v1 > a.v1 ? f : a), flows[0]!);
     if (fam.baffled && fastest.v1 > BASIN_LIMITS.usbr3Velocity) {
-      warnings.push({ code: 'baffle-cavitation', message: `V1 = ${say(fastest.v1, 'velocity')} is above ${say.limit(BASIN_LIMITS.usbr3Velocity, 'velocity', '60 ft/s')}: baffle piers or floor blocks in the jump risk cavitation damage. The USBR monograph uses Basin II (no baffles) above this velocity.`, field: 'velocities' });
+      warnings.push({ code: 'baffle-cavitation', message: `V1 = ${say(fastest.v1, 'velocity')} is above ${say.limit(BASIN_LIMITS.usbr3Velocity, 'velocity', '60 ft/s')}: baffle piers or floor blocks in the jump risk cavitation damage. The USBR monograph uses Basin II (no baffles) above this velocity.`, field: input.inflowField ?? 'velocities' });
     }
   }
 
@@ -199,14 +206,14 @@ export function screenStillingBasins(input: StillingBasinInput): SolverResult<St
       q: design.q,
       y2: design.y2,
       basinLength: length,
-      tailwaterFactor: sized ? sized.tailwaterFactor(design) : null,
-      governingDischarge: discharges ? discharges[governing]! : null,
-      governingY1: flows[governing]!.y1,
-      governingY2: flows[governing]!.y2,
+      tailwaterFactor: sized ? sized.tailwaterFactor(flows[governing]!) : null,
+      governingDischarge: sized && discharges ? discharges[governing]! : null,
+      governingY1: sized ? flows[governing]!.y1 : null,
+      governingY2: sized ? flows[governing]!.y2 : null,
       requiredTailwater: sized ? sized.tailwaterFactor(flows[governing]!) * flows[governing]!.y2 : null,
-      tailwater: tailwater[governing]!,
+      tailwater: sized ? tailwater[governing]! : null,
       margin: chosen ? chosen.margins[governing]! : null,
-      sweptOutCount: chosen ? chosen.margins.filter((m) => m < 0).length : 0,
+      sweptOutCount: chosen ? chosen.margins.filter((m) => m < 0).length : null,
       ...elements,
       rows: rows.map((r) => r.row),
     },

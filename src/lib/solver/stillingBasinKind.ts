@@ -49,14 +49,14 @@ export const STILLING_BASIN_SPEC: KindSpec = {
     numberOutput('q', 'Discharge per unit width', 'q', 'q', 'unitDischarge', 'q = V1·y1 of the design flow.'),
     numberOutput('y2', 'Sequent depth', 'y2', 'y_2', 'length', 'Bélanger sequent depth of the design flow.'),
     size('basinLength', 'Basin length', 'LB', 'L_B', 'Length of the basin floor from the toe to the end sill.'),
-    optional(numberOutput('tailwaterFactor', 'Tailwater factor', 'TW/y2', 'TW/y_2', 'dimensionless', 'Required tailwater as a multiple of y2 (design flow).', true)),
+    optional(numberOutput('tailwaterFactor', 'Tailwater factor', 'TW/y2', 'TW/y_2', 'dimensionless', 'Required tailwater as a multiple of y2, at the governing flow.', true)),
     optional(numberOutput('governingDischarge', 'Governing discharge', 'Qg', 'Q_g', 'discharge', 'Discharge with the smallest tailwater margin.', true)),
-    numberOutput('governingY1', 'Governing toe depth', 'y1g', 'y_{1,g}', 'length', 'Toe depth of the governing flow.'),
-    numberOutput('governingY2', 'Governing sequent depth', 'y2g', 'y_{2,g}', 'length', 'Sequent depth of the governing flow.'),
+    optional(numberOutput('governingY1', 'Governing toe depth', 'y1g', 'y_{1,g}', 'length', 'Toe depth of the governing flow.', true)),
+    optional(numberOutput('governingY2', 'Governing sequent depth', 'y2g', 'y_{2,g}', 'length', 'Sequent depth of the governing flow.', true)),
     size('requiredTailwater', 'Required tailwater', 'TWreq', 'TW_{req}', 'Tailwater the family needs at the governing flow.'),
-    numberOutput('tailwater', 'Tailwater', 'TW', 'TW', 'length', 'Available tailwater at the governing flow.'),
+    optional(numberOutput('tailwater', 'Tailwater', 'TW', 'TW', 'length', 'Available tailwater at the governing flow.', true)),
     size('margin', 'Tailwater margin', 'TW-TWreq', 'TW - TW_{req}', 'Smallest margin over the flows; negative: the jump sweeps out.'),
-    numberOutput('sweptOutCount', 'Flows swept out', 'nswept', 'n_{swept}', 'dimensionless', 'Flows whose tailwater is below the requirement.'),
+    optional(numberOutput('sweptOutCount', 'Flows swept out', 'nswept', 'n_{swept}', 'dimensionless', 'Flows whose tailwater is below the requirement.', true)),
     size('chuteBlockHeight', 'Chute block height', 'h1', 'h_1', 'Height of the chute blocks at the toe.'),
     size('chuteBlockWidth', 'Chute block width', 'w1', 'w_1', 'Width of a chute block.'),
     size('chuteBlockSpacing', 'Chute block spacing', 's1', 's_1', 'Clear space between chute blocks.'),
@@ -75,7 +75,7 @@ export const STILLING_BASIN_SPEC: KindSpec = {
       text('family', 'Family', 'Basin family.'),
       { ...text('fits', 'Fits', 'Whether every flow is inside the family\'s stated range.'), choices: ['yes', 'no'] },
       numberOutput('basinLength', 'Length', 'LB', 'L_B', 'length', 'Basin length for the design flow.'),
-      numberOutput('tailwaterFactor', 'TW/y2', 'TW/y2', 'TW/y_2', 'dimensionless', 'Required tailwater over y2.'),
+      numberOutput('tailwaterFactor', 'TW/y2', 'TW/y2', 'TW/y_2', 'dimensionless', 'Required tailwater over y2, at the flow with the smallest margin.'),
       numberOutput('minMargin', 'Smallest margin', 'min(TW-TWreq)', '\\min(TW - TW_{req})', 'length', 'Smallest tailwater margin over the flows.'),
       numberOutput('criticalDischarge', 'At discharge', 'Qcrit', 'Q_{crit}', 'discharge', 'Discharge with the smallest margin.', true),
       text('why', 'Why', 'The first flow outside the range, or the range the flows span.'),
@@ -107,7 +107,7 @@ export function runStillingBasin(v: InputValues, context: SolveContext = { unitS
   const v1 = velocities(v, y1);
   if (!v1.ok) return v1;
   const discharges = v['discharges'] as readonly number[] | undefined;
-  const input: StillingBasinInput = { y1, v1: v1.value, tailwater, ...(discharges ? { discharges } : {}), family: v['family'] as StillingBasinInput['family'], maxSubmergence: v['maxSubmergence'] as number, g: v['g'] as number, unitSystem: context.unitSystem };
+  const input: StillingBasinInput = { y1, v1: v1.value, tailwater, ...(discharges ? { discharges } : {}), family: v['family'] as StillingBasinInput['family'], maxSubmergence: v['maxSubmergence'] as number, g: v['g'] as number, unitSystem: context.unitSystem, inflowField: v['velocities'] ? 'velocities' : v['unitDischarges'] ? 'unitDischarges' : 'discharges' };
   const r = screenStillingBasins(input);
   if (!r.ok) return r;
   const { rows, ...values } = r.value;

@@ -68,3 +68,15 @@ describe('a basin block\'s results leave out what the family has none of', () =>
     expect(shown).not.toContain('chuteBlockHeight');
   });
 });
+
+describe('references keep their earlier meaning', () => {
+  it('an input the block was given wins over the column of the same name (check.y1 with toe = depth)', () => {
+    const md = [
+      fence('tailwater check', 'b = 10 m', 'Q = 20, 40 m3/s', 'toe = depth', 'y1 = 0.6 m', 'rating:', '  Q m3/s | TW m', '  0 | 1.0', '  100 | 4.0'),
+      fence('jump j', 'b = 10 m', 'Q = 40 m3/s', 'y1 = check.y1'),
+    ].join('\n');
+    const [, jump] = evaluateCase(md).blocks;
+    expect(jump!.status).toBe('ok');
+    expect(jump!.inputs.find((i) => i.name === 'y1')!.si).toBe(0.6);
+  });
+});

@@ -106,3 +106,12 @@ describe('basinOutlineInput', () => {
     expect(basinOutlineInput({ ...block(['y1 = 0.5 m', 'V1 = 14 m/s', 'TW = 4.6 m']), kind: 'hydraulic-jump' })).toBeNull();
   });
 });
+
+describe('basinOutlineLayout at the extremes', () => {
+  it('keeps a tall sill on a short basin inside the basin, and drops baffles that would run into it', () => {
+    const l = basinOutlineLayout({ ...USBR3, basinLength: 2, governingY1: 0.3, governingY2: 2.5, tailwater: 2.6, requiredTailwater: 2.5, chuteBlockHeight: 0.3, endSillHeight: 1.2, baffleHeight: 0.5, baffleWidth: 0.4, baffleDistance: 1.5 })!;
+    expect(l).not.toBeNull();
+    expect(Math.min(...l.sill!.map(([x]) => x))).toBeGreaterThanOrEqual(0);
+    expect(l.baffle).toBeNull();
+  });
+});

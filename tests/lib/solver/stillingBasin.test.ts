@@ -255,7 +255,7 @@ describe('properties', () => {
         expect(r.ok).toBe(true);
         if (!r.ok) return;
         for (const row of r.value.rows) expect(row.fits === 'yes').toBe(row.why.startsWith('inside'));
-        if (r.value.margin !== null) expect(r.value.sweptOutCount > 0).toBe(r.value.margin < 0);
+        if (r.value.margin !== null) expect((r.value.sweptOutCount ?? 0) > 0).toBe(r.value.margin < 0);
       }),
     );
   });
@@ -273,5 +273,32 @@ describe('properties', () => {
         }
       }),
     );
+  });
+});
+
+describe('details an engineer reads', () => {
+  it('a Froude number just past a limit never reads as the limit', () => {
+    expect(row(run({ y1: [0.5], v1: [vFor(4.501, 0.5)] }), 'USBR IV').why).toBe('Fr1 = 4.501 is above 4.5');
+  });
+  it('the SAF tailwater factor is held at the range ends, never negative (Blaisdell 1948 covers 1.7–17)', () => {
+    expect(safTailwaterFactor(30)).toBe(safTailwaterFactor(17));
+    expect(safTailwaterFactor(1.2)).toBe(safTailwaterFactor(1.7));
+    expect(safTailwaterFactor(17)).toBeGreaterThan(0.6);
+  });
+  it('lists that do not line up are reported on the inflow line the block gave', () => {
+    const r = screenStillingBasins({ ...base, y1: [0.3, 0.4, 0.5], v1: [10, 11], inflowField: 'discharges' });
+    expect(!r.ok && r.error.field).toBe('discharges');
+  });
+  it('the oscillating warning names its flows', () => {
+    const r = run({ y1: [0.5], v1: [vFor(3, 0.5), vFor(6, 0.5)], tailwater: [10], discharges: [30, 60] });
+    expect(r.warnings.find((w) => w.code === 'oscillating-jump')!.message).toContain('At 1 of 2 flows 2.5 ≤ Fr1 < 4.5 (Q = 30 m³/s: Fr1 = 3)');
+  });
+  it('when no family is sized, the governing-flow figures are empty, not the first flow', () => {
+    const v = run({ v1: [vFor(1.5, 0.5)] }).value;
+    expect([v.governingY1, v.governingY2, v.tailwater, v.requiredTailwater, v.sweptOutCount]).toEqual([null, null, null, null, null]);
+  });
+  it('the tailwater factor shown is the governing flow\'s, so TW/y2 × y2g is the required tailwater', () => {
+    const v = run({ y1: [0.3, 0.6], v1: [vFor(12, 0.3), vFor(6, 0.6)], tailwater: [1.5, 20], family: 'saf' }).value;
+    expect(v.tailwaterFactor! * v.governingY2!).toBeCloseTo(v.requiredTailwater!, 12);
   });
 });
