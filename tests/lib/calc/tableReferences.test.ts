@@ -80,3 +80,13 @@ describe('references keep their earlier meaning', () => {
     expect(jump!.inputs.find((i) => i.name === 'y1')!.si).toBe(0.6);
   });
 });
+
+describe('solver messages in a US block', () => {
+  it('a tailwater sweep quotes the apron lowering and the rating range in ft and ft³/s', () => {
+    const md = fence('tailwater t', 'units = US', 'b = 30 ft', 'Q = 150 to 900 cfs step 150', 'toe = depth', 'y1 = 0.6 ft', 'rating:', '  Q cfs | TW ft', '  100 | 2.0', '  600 | 3.0');
+    const messages = evaluateCase(md).blocks[0]!.warnings.map((w) => w.message).join(' ');
+    expect(messages).toMatch(/The largest apron lowering found is \d+(\.\d+)? ft\./);
+    expect(messages).toContain('outside the tailwater rating (100 ft³/s to 600 ft³/s)');
+    expect(messages).not.toMatch(/\d m\b|m³/);
+  });
+});
