@@ -47,10 +47,17 @@ export function validateInputs(spec: KindSpec, inputs: unknown): SolverResult<In
     const group = { ...spec_, options: spec_.options.filter((o) => o.every((n) => applicable.has(n))) };
     const complete = group.options.filter((o) => o.every((n) => out[n] !== undefined));
     const touched = group.options.filter((o) => o.some((n) => out[n] !== undefined));
-    const list = group.options.map((o) => o.join(' + ')).join(' | ');
+    // Symbols, as blocks write them: `V1 | Q + b | q`.
+    const symbol = (n: string) => spec.inputs.find((f) => f.name === n)?.symbol ?? n;
+    const list = group.options.map((o) => o.map(symbol).join(' + ')).join(' | ');
     if (complete.length === 0) {
       const partial = touched[0]?.find((n) => out[n] === undefined);
-      return fail('missing-input', `${group.description} (one of: ${list}).`, partial ?? group.options[0]?.[0]);
+      if (partial !== undefined) {
+        const given = touched[0]!.find((n) => out[n] !== undefined)!;
+        const field = spec.inputs.find((f) => f.name === partial);
+        return fail('missing-input', `${symbol(given)} needs ${symbol(partial)}${field ? ` (${field.label.toLowerCase()})` : ''} too: ${group.description.charAt(0).toLowerCase()}${group.description.slice(1)} (one of: ${list}).`, given);
+      }
+      return fail('missing-input', `${group.description} (one of: ${list}).`, group.options[0]?.[0]);
     }
     if (touched.length > 1) {
       const extra = touched.find((o) => o !== complete[0]);

@@ -90,3 +90,10 @@ describe('solver messages in a US block', () => {
     expect(messages).not.toMatch(/\d m\b|m³/);
   });
 });
+
+describe('an inflow given by halves', () => {
+  it('Q without b says so on the Q line, in the block\'s symbols', () => {
+    const md = fence('basin', 'y1 = 0.5 m', 'Q = 60 m3/s', 'TW = 4 m');
+    expect(evaluateCase(md).blocks[0]!.errors[0]).toEqual({ line: 3, message: 'Q needs b (basin width) too: give the inflow as the velocity at the toe, the discharge with the basin width, or the discharge per unit width (one of: V1 | Q + b | q).' });
+  });
+});

@@ -49,7 +49,7 @@ describe('solve(kind, inputs) rejects bad calls without throwing', () => {
     expect(errorOf('hydraulic-jump', { width: 1, discharge: 1 })).toMatchObject({ code: 'missing-input' });
     expect(errorOf('hydraulic-jump', { width: 1, discharge: 1, y1: 0.1, y2: 1 })).toMatchObject({ code: 'conflicting-input' });
     expect(errorOf('hydraulic-jump', { width: 1, discharge: 1, unitDischarge: 1, y1: 0.1 })).toMatchObject({ code: 'conflicting-input' });
-    expect(errorOf('tailwater-check', { width: 1, dischargeMin: 1, head: 5, tailwaterRating: { discharge: [0, 9], depth: [1, 2] } })).toMatchObject({ code: 'missing-input', field: 'dischargeMax' });
+    expect(errorOf('tailwater-check', { width: 1, dischargeMin: 1, head: 5, tailwaterRating: { discharge: [0, 9], depth: [1, 2] } })).toMatchObject({ code: 'missing-input', field: 'dischargeMin', message: expect.stringMatching(/^Qmin needs Qmax \(largest discharge\) too: /) });
   });
 
   it('rejects a choice outside its list', () => {
