@@ -3,6 +3,8 @@
  * Sources: momentum balance M(y1) = M(y2), Chow, V. T., 1959, Open-Channel Hydraulics, §15-2;
  * Bélanger closed form for rectangles (Chow eq. 15-3); head loss ΔE = E1 − E2 (Chow §15-4).
  */
+import { sayIn } from './say';
+import type { UnitSystem } from './units';
 import { STANDARD_GRAVITY, WATER_DENSITY } from './constants';
 import { criticalDepth } from './criticalDepth';
 import { froudeNumber } from './froudeNumber';
@@ -32,6 +34,8 @@ export interface HydraulicJumpInput {
   readonly g?: number;
   /** Water density, kg/m³; default {@link WATER_DENSITY}. */
   readonly density?: number;
+  /** Units of the figures quoted in messages (default SI). */
+  readonly unitSystem?: UnitSystem;
 }
 
 /** Result of {@link solveHydraulicJump}; lengths m, velocities m/s, power W. */
@@ -109,22 +113,23 @@ export function solveHydraulicJump(input: HydraulicJumpInput): SolverResult<Hydr
     return Number.isFinite(discharge * discharge) ? noConvergence('the critical depth') : overflowFailure('critical depth');
   }
   const frGiven = froudeNumber(section, discharge, given, g);
+  const say = sayIn(input.unitSystem ?? 'SI');
   let y1: number;
   let y2: number;
   if (hasY1) {
     if (!(frGiven > 1)) {
-      return fail('no-jump', `Fr1 = ${frGiven.toPrecision(3)} ≤ 1: the upstream flow (y1 = ${given.toPrecision(4)} m, critical depth ${yc.toPrecision(4)} m) is already subcritical, so no hydraulic jump can form. A jump needs supercritical inflow; check y1 and Q, or give the downstream depth y2 instead.`, 'y1');
+      return fail('no-jump', `Fr1 = ${frGiven.toPrecision(3)} ≤ 1: the upstream flow (y1 = ${say(given, 'length', 4)}, critical depth ${say(yc, 'length', 4)}) is already subcritical, so no hydraulic jump can form. A jump needs supercritical inflow; check y1 and Q, or give the downstream depth y2 instead.`, 'y1');
     }
     y1 = given;
     y2 = sequentOfSupercritical(section, discharge, y1, yc, g);
     if (y2 === Number.POSITIVE_INFINITY && section.shape === 'circular') {
       const mCrown = momentumFunction(section, discharge, section.diameter, g);
       const m1 = momentumFunction(section, discharge, y1, g);
-      return fail('section-surcharged', `The sequent depth would be above the crown of the D = ${section.diameter} m conduit: the momentum of the inflow (M1 = ${m1.toPrecision(4)} m³) exceeds the largest open-channel momentum the pipe can carry (M at the crown = ${mCrown.toPrecision(4)} m³). The jump would fill the pipe and pressurise the flow downstream, where the open-channel momentum balance no longer holds. Use a larger conduit or a pressurised-flow analysis.`, 'y1');
+      return fail('section-surcharged', `The sequent depth would be above the crown of the D = ${say(section.diameter, 'length', 4)} conduit: the momentum of the inflow (M1 = ${say(m1, 'volume', 4)}) exceeds the largest open-channel momentum the pipe can carry (M at the crown = ${say(mCrown, 'volume', 4)}). The jump would fill the pipe and pressurise the flow downstream, where the open-channel momentum balance no longer holds. Use a larger conduit or a pressurised-flow analysis.`, 'y1');
     }
   } else {
     if (!(frGiven < 1)) {
-      return fail('not-subcritical', `Fr2 = ${frGiven.toPrecision(3)} ≥ 1: the downstream depth y2 = ${given.toPrecision(4)} m is not above critical depth (${yc.toPrecision(4)} m). The flow after a jump must be subcritical; check y2 and Q, or give the upstream depth y1 instead.`, 'y2');
+      return fail('not-subcritical', `Fr2 = ${frGiven.toPrecision(3)} ≥ 1: the downstream depth y2 = ${say(given, 'length', 4)} is not above critical depth (${say(yc, 'length', 4)}). The flow after a jump must be subcritical; check y2 and Q, or give the upstream depth y1 instead.`, 'y2');
     }
     y2 = given;
     y1 = sequentOfSubcritical(section, discharge, y2, yc, g);

@@ -4,6 +4,7 @@
 import { solveHydraulicJump } from './hydraulicJump';
 import { DENSITY_FIELD, dischargeFromValues, GRAVITY_FIELD, numberOutput, positiveField, sectionFields, sectionFromValues } from './inputFields';
 import { JUMP_TYPES } from './jumpType';
+import type { SolveContext } from './kinds';
 import type { KindSpec, InputValues, SolveOutput } from './kindSpec';
 import type { SolverResult } from './result';
 
@@ -50,13 +51,14 @@ export const HYDRAULIC_JUMP_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runHydraulicJump(v: InputValues): SolverResult<SolveOutput> {
+export function runHydraulicJump(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
   const r = solveHydraulicJump({
     section: sectionFromValues(v),
     discharge: dischargeFromValues(v),
     ...(v['y1'] !== undefined ? { y1: v['y1'] as number } : { y2: v['y2'] as number }),
     g: v['g'] as number,
     density: v['density'] as number,
+    unitSystem: context.unitSystem,
   });
   return r.ok ? { ok: true, value: { kind: HYDRAULIC_JUMP_SPEC.kind, values: { discharge: dischargeFromValues(v), ...r.value } }, warnings: r.warnings } : r;
 }

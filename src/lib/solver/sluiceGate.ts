@@ -5,6 +5,8 @@
  * Sources: Henderson, F. M., 1966, Open Channel Flow, ch. 6 (sluice gates; from memory);
  * Chow, V. T., 1959, Open-Channel Hydraulics, §17 (from memory). Cc ≈ 0.61: common practice.
  */
+import { sayIn } from './say';
+import type { UnitSystem } from './units';
 import { STANDARD_GRAVITY } from './constants';
 import { fail, type SolverResult, type Warning } from './result';
 import { checkPhysics, checkPositive } from './validate';
@@ -32,6 +34,8 @@ export interface SluiceGateInput {
   readonly discharge?: number;
   /** Gravity, m/s². */
   readonly g?: number;
+  /** Units of the figures quoted in messages (default SI). */
+  readonly unitSystem?: UnitSystem;
 }
 
 /** Result of {@link solveSluiceGate}. */
@@ -88,7 +92,7 @@ export function solveSluiceGate(input: SluiceGateInput): SolverResult<SluiceGate
     y0 = (q * q + Math.sqrt(q ** 4 + 8 * g * y1 ** 3 * q * q)) / (4 * g * y1 * y1);
   }
   if (!(y0 > a)) {
-    return fail('gate-not-submerged', `The upstream depth y0 = ${y0.toPrecision(4)} m is not above the gate lip (a = ${a} m): the water does not touch the gate, so the flow is weir or open-channel flow and the sluice-gate relation does not apply.`, hasY0 ? 'upstreamDepth' : 'discharge');
+    return fail('gate-not-submerged', `The upstream depth y0 = ${sayIn(input.unitSystem ?? 'SI')(y0, 'length', 4)} is not above the gate lip (a = ${sayIn(input.unitSystem ?? 'SI')(a, 'length', 4)}): the water does not touch the gate, so the flow is weir or open-channel flow and the sluice-gate relation does not apply.`, hasY0 ? 'upstreamDepth' : 'discharge');
   }
   if (!Number.isFinite(q * q * y0)) return fail('out-of-range', 'The gate discharge is not a finite number; the inputs are out of range.');
   const v1 = q / y1;

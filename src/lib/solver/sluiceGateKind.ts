@@ -2,6 +2,7 @@
  * `sluice-gate` kind: metadata and adapter for {@link solveSluiceGate}.
  */
 import { GRAVITY_FIELD, numberOutput, positiveField } from './inputFields';
+import type { SolveContext } from './kinds';
 import type { InputValues, KindSpec, SolveOutput } from './kindSpec';
 import type { SolverResult } from './result';
 import { DEFAULT_CONTRACTION_COEFFICIENT, solveSluiceGate } from './sluiceGate';
@@ -39,9 +40,9 @@ export const SLUICE_GATE_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runSluiceGate(v: InputValues): SolverResult<SolveOutput> {
+export function runSluiceGate(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
   const b = v['width'] as number;
   const known = v['upstreamDepth'] !== undefined ? { upstreamDepth: v['upstreamDepth'] as number } : { discharge: v['discharge'] !== undefined ? (v['discharge'] as number) : (v['unitDischarge'] as number) * b };
-  const r = solveSluiceGate({ width: b, opening: v['opening'] as number, contractionCoefficient: v['contractionCoefficient'] as number, g: v['g'] as number, ...known });
+  const r = solveSluiceGate({ width: b, opening: v['opening'] as number, contractionCoefficient: v['contractionCoefficient'] as number, g: v['g'] as number, unitSystem: context.unitSystem, ...known });
   return r.ok ? { ok: true, value: { kind: SLUICE_GATE_SPEC.kind, values: { ...r.value } }, warnings: r.warnings } : r;
 }

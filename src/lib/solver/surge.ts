@@ -6,6 +6,8 @@
  * Chow, V. T., 1959, Open-Channel Hydraulics, §18-2 (surge equations).
  * Sign convention: x and velocities positive downstream.
  */
+import { sayIn, type Say } from './say';
+import type { UnitSystem } from './units';
 import { brent } from './brent';
 import { STANDARD_GRAVITY } from './constants';
 import { fail, type SolverResult, type Warning } from './result';
@@ -44,6 +46,8 @@ export interface SurgeInput {
   readonly dischargeChange?: number;
   /** Gravity, m/s². */
   readonly g?: number;
+  /** Units of the figures quoted in messages (default SI). */
+  readonly unitSystem?: UnitSystem;
 }
 
 /** Result of {@link solveSurge}. */
@@ -86,6 +90,7 @@ export function solveSurge(input: SurgeInput): SolverResult<SurgeResult> {
     return fail('unsupported-section', 'Only rectangular sections are supported for moving surges.', 'shape');
   }
   const g = input.g ?? STANDARD_GRAVITY;
+  const say = sayIn(input.unitSystem ?? 'SI');
   const h = input.depth;
   const u = input.velocity ?? 0;
   const bad = checkPositive(h, 'depth', 'Undisturbed depth h') ?? checkFinite(u, 'velocity', 'Undisturbed velocity u') ?? checkPhysics(g, undefined);
@@ -121,7 +126,7 @@ export function solveSurge(input: SurgeInput): SolverResult<SurgeResult> {
     case 'surgeSpeed': {
       const c = s * (x - u);
       if (!(c > c0)) {
-        return negativeSurge(known, `a front moving ${input.direction} at w = ${x} m/s travels at ${c.toPrecision(4)} m/s relative to the water, not faster than √(g·h) = ${c0.toPrecision(4)} m/s as every bore does`);
+        return negativeSurge(known, `a front moving ${input.direction} at w = ${say(x, 'velocity', 4)} travels at ${say(c, 'velocity', 4)} relative to the water, not faster than √(g·h) = ${say(c0, 'velocity', 4)} as every bore does`);
       }
       const fr = c / c0;
       h2 = 0.5 * h * (Math.sqrt(1 + 8 * fr * fr) - 1);
@@ -159,7 +164,7 @@ export function solveSurge(input: SurgeInput): SolverResult<SurgeResult> {
     frontType: boreFront(frS),
   };
   if (!Number.isFinite(w + u2 + h2 + result.dischargeChange)) return overflowFailure('surge');
-  return { ok: true, value: result, warnings: surgeWarnings(result, input.direction) };
+  return { ok: true, value: result, warnings: surgeWarnings(result, input.direction, say) };
 }
 
 /** Front type: undular below {@link UNDULAR_BORE_LIMIT}, breaking from {@link BREAKING_BORE_LIMIT}. */
@@ -178,11 +183,11 @@ export function boreFrontWarnings(frS: number, into: Warning[]): void {
   }
 }
 
-function surgeWarnings(r: SurgeResult, direction: SurgeDirection): Warning[] {
+function surgeWarnings(r: SurgeResult, direction: SurgeDirection, say: Say): Warning[] {
   const warnings: Warning[] = [];
   boreFrontWarnings(r.surgeFroude, warnings);
   if (direction === 'upstream' && r.surgeSpeed >= 0) {
-    warnings.push({ code: 'swept-downstream', message: `The undisturbed flow is faster than the front's relative celerity, so this upstream-facing front moves downstream (w = ${r.surgeSpeed.toPrecision(4)} m/s): a travelling hydraulic jump in supercritical flow.` });
+    warnings.push({ code: 'swept-downstream', message: `The undisturbed flow is faster than the front's relative celerity, so this upstream-facing front moves downstream (w = ${say(r.surgeSpeed, 'velocity', 4)}): a travelling hydraulic jump in supercritical flow.` });
   }
   return warnings;
 }

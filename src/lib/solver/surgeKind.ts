@@ -2,6 +2,7 @@
  * `surge` kind: metadata and adapter for {@link solveSurge}.
  */
 import { GRAVITY_FIELD, numberOutput, positiveField } from './inputFields';
+import type { SolveContext } from './kinds';
 import type { InputValues, KindSpec, SolveOutput } from './kindSpec';
 import type { SolverResult } from './result';
 import { SECTION_SHAPES } from './section';
@@ -45,13 +46,14 @@ export const SURGE_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runSurge(v: InputValues): SolverResult<SolveOutput> {
+export function runSurge(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
   const input: SurgeInput = {
     shape: v['shape'] as SurgeInput['shape'],
     depth: v['depth'] as number,
     velocity: v['velocity'] as number,
     direction: v['direction'] as SurgeDirection,
     g: v['g'] as number,
+    unitSystem: context.unitSystem,
     ...Object.fromEntries(['depthBehind', 'velocityBehind', 'surgeSpeed', 'dischargeChange'].filter((k) => v[k] !== undefined).map((k) => [k, v[k] as number])),
   };
   const r = solveSurge(input);

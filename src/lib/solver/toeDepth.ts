@@ -5,6 +5,8 @@
  * Hydraulics, §3-1 and §14 (spillway toe); maximum discharge for a given head at
  * H − y = A/(2T) (critical flow), Chow §4-2 and Henderson, F. M., 1966, Open Channel Flow, §2.4.
  */
+import { sayIn } from './say';
+import type { UnitSystem } from './units';
 import { brent } from './brent';
 import { STANDARD_GRAVITY } from './constants';
 import { criticalDepth, DEPTH_TOLERANCE, rootBelow } from './criticalDepth';
@@ -26,6 +28,8 @@ export interface ToeDepthInput {
   readonly lossCoefficient?: number;
   /** Gravity, m/s². */
   readonly g?: number;
+  /** Units of the figures quoted in messages (default SI). */
+  readonly unitSystem?: UnitSystem;
 }
 
 /** Result of {@link solveToeDepth}. */
@@ -77,7 +81,8 @@ export function solveToeDepth(input: ToeDepthInput): SolverResult<ToeDepthResult
   const r = toeDepthCore(section, discharge, head, k, g, criticalDepth(section, discharge * Math.sqrt(1 + k), g));
   if (r === TOE_TOO_LITTLE_HEAD) {
     const qMax = maxDischargeForHead(section, head, k, g);
-    return fail('discharge-exceeds-maximum', `Q = ${discharge.toPrecision(4)} m³/s exceeds the largest discharge the head H = ${head.toPrecision(4)} m can deliver (Q_max = ${qMax.toPrecision(4)} m³/s${k > 0 ? `, with k = ${k}` : ''}). At Q_max the flow at the toe is critical; a larger discharge needs more head, so there is no supercritical toe depth.`, 'discharge');
+    const say = sayIn(input.unitSystem ?? 'SI');
+    return fail('discharge-exceeds-maximum', `Q = ${say(discharge, 'discharge', 4)} exceeds the largest discharge the head H = ${say(head, 'length', 4)} can deliver (Q_max = ${say(qMax, 'discharge', 4)}${k > 0 ? `, with k = ${k}` : ''}). At Q_max the flow at the toe is critical; a larger discharge needs more head, so there is no supercritical toe depth.`, 'discharge');
   }
   if (Number.isNaN(r)) return noConvergence('the toe depth');
   const a = area(section, r);

@@ -2,6 +2,7 @@
  * `toe-depth` kind: metadata and adapter for {@link solveToeDepth}.
  */
 import { dischargeFromValues, GRAVITY_FIELD, numberOutput, positiveField, sectionFields, sectionFromValues } from './inputFields';
+import type { SolveContext } from './kinds';
 import type { InputValues, KindSpec, SolveOutput } from './kindSpec';
 import type { SolverResult } from './result';
 import { solveToeDepth } from './toeDepth';
@@ -37,8 +38,8 @@ export const TOE_DEPTH_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runToeDepth(v: InputValues): SolverResult<SolveOutput> {
+export function runToeDepth(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
   const discharge = dischargeFromValues(v);
-  const r = solveToeDepth({ section: sectionFromValues(v), discharge, head: v['head'] as number, lossCoefficient: v['lossCoefficient'] as number, g: v['g'] as number });
+  const r = solveToeDepth({ section: sectionFromValues(v), discharge, head: v['head'] as number, lossCoefficient: v['lossCoefficient'] as number, g: v['g'] as number, unitSystem: context.unitSystem });
   return r.ok ? { ok: true, value: { kind: TOE_DEPTH_SPEC.kind, values: { discharge, ...r.value } }, warnings: r.warnings } : r;
 }

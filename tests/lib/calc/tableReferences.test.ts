@@ -89,6 +89,16 @@ describe('solver messages in a US block', () => {
     expect(messages).toContain('outside the tailwater rating (100 ft³/s to 600 ft³/s)');
     expect(messages).not.toMatch(/\d m\b|m³/);
   });
+
+  it.each([
+    ['a jump whose inflow is already subcritical', fence('jump', 'units = US', 'b = 10 ft', 'Q = 100 cfs', 'y1 = 5 ft'), /y1 = 5 ft, critical depth 1\.459 ft/],
+    ['a toe asked for more than its head delivers', fence('toe', 'units = US', 'b = 10 ft', 'Q = 5000 cfs', 'H = 3 ft'), /Q = 5000 ft³\/s exceeds the largest discharge the head H = 3 ft can deliver \(Q_max = [\d.]+ ft³\/s/],
+    ['a gate above the water', fence('gate', 'units = US', 'b = 10 ft', 'a = 4 ft', 'Cc = 0.61', 'y0 = 3 ft'), /y0 = 3 ft is not above the gate lip \(a = 4 ft\)/],
+  ])('%s is explained in ft', (_t, md, message) => {
+    const b = evaluateCase(md).blocks[0]!;
+    expect(b.errors[0]!.message).toMatch(message);
+    expect(b.errors[0]!.message).not.toMatch(/\d m\b|m³/);
+  });
 });
 
 describe('an inflow given by halves', () => {
