@@ -14,7 +14,7 @@
  * high end of the Froude range (4.3·y2 and 2.7·y2); lower down the curves give slightly less,
  * so these are on the long side. Pure: no I/O.
  */
-import type { Say } from './say';
+import { trimmed as fmt, type Say } from './say';
 
 /** Ids of the families, in the order of the screening table. */
 export const BASIN_FAMILIES = ['natural', 'usbr2', 'usbr3', 'usbr4', 'saf'] as const;
@@ -91,7 +91,6 @@ export const BASIN_LIMITS = {
 } as const;
 
 const L = BASIN_LIMITS;
-const fmt = (x: number, digits = 3) => Number(x.toPrecision(digits)).toString();
 const none = { chuteBlockHeight: null, chuteBlockWidth: null, chuteBlockSpacing: null, baffleHeight: null, baffleWidth: null, baffleSpacing: null, baffleDistance: null, endSillHeight: null, sillToothWidth: null, sillToothSpacing: null } as const;
 
 // Four figures, so that a Froude number just past a limit never reads as the limit itself.

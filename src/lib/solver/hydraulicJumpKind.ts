@@ -51,7 +51,7 @@ export const HYDRAULIC_JUMP_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runHydraulicJump(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
+export function runHydraulicJump(v: InputValues, context: SolveContext): SolverResult<SolveOutput> {
   const r = solveHydraulicJump({
     section: sectionFromValues(v),
     discharge: dischargeFromValues(v),

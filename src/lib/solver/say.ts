@@ -11,7 +11,8 @@ export type Say = ((valueSI: number, quantity: Quantity, significant?: number) =
   readonly limit: (valueSI: number, quantity: Quantity, source: string) => string;
 };
 
-const trimmed = (x: number, digits: number) => Number(x.toPrecision(digits)).toString();
+/** `x` to `digits` significant figures, without trailing zeros: `4.5`, `0.713`, `46.45`. */
+export const trimmed = (x: number, digits = 3): string => Number(x.toPrecision(digits)).toString();
 
 /** A {@link Say} for `system`. */
 export function sayIn(system: UnitSystem): Say {

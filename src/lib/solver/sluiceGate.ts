@@ -92,7 +92,8 @@ export function solveSluiceGate(input: SluiceGateInput): SolverResult<SluiceGate
     y0 = (q * q + Math.sqrt(q ** 4 + 8 * g * y1 ** 3 * q * q)) / (4 * g * y1 * y1);
   }
   if (!(y0 > a)) {
-    return fail('gate-not-submerged', `The upstream depth y0 = ${sayIn(input.unitSystem ?? 'SI')(y0, 'length', 4)} is not above the gate lip (a = ${sayIn(input.unitSystem ?? 'SI')(a, 'length', 4)}): the water does not touch the gate, so the flow is weir or open-channel flow and the sluice-gate relation does not apply.`, hasY0 ? 'upstreamDepth' : 'discharge');
+    const say = sayIn(input.unitSystem ?? 'SI');
+    return fail('gate-not-submerged', `The upstream depth y0 = ${say(y0, 'length', 4)} is not above the gate lip (a = ${say(a, 'length', 4)}): the water does not touch the gate, so the flow is weir or open-channel flow and the sluice-gate relation does not apply.`, hasY0 ? 'upstreamDepth' : 'discharge');
   }
   if (!Number.isFinite(q * q * y0)) return fail('out-of-range', 'The gate discharge is not a finite number; the inputs are out of range.');
   const v1 = q / y1;

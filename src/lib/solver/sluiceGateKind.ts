@@ -40,7 +40,7 @@ export const SLUICE_GATE_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runSluiceGate(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
+export function runSluiceGate(v: InputValues, context: SolveContext): SolverResult<SolveOutput> {
   const b = v['width'] as number;
   const known = v['upstreamDepth'] !== undefined ? { upstreamDepth: v['upstreamDepth'] as number } : { discharge: v['discharge'] !== undefined ? (v['discharge'] as number) : (v['unitDischarge'] as number) * b };
   const r = solveSluiceGate({ width: b, opening: v['opening'] as number, contractionCoefficient: v['contractionCoefficient'] as number, g: v['g'] as number, unitSystem: context.unitSystem, ...known });

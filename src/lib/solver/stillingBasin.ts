@@ -8,7 +8,7 @@
 import { BASIN_FAMILIES, BASIN_LIMITS, FAMILIES, SELECTION_ORDER, type BasinElements, type BasinFamilyId, type ToeFlow } from './basinFamilies';
 import { fail, succeed, type SolverResult, type Warning } from './result';
 import { belangerRatio } from './sequentDepth';
-import { sayIn, type Say } from './say';
+import { sayIn, trimmed as fmt, type Say } from './say';
 import type { UnitSystem } from './units';
 
 /** Default limit of (TW − y2)/y2 above which the jump counts as drowned (common practice). */
@@ -74,7 +74,6 @@ export interface StillingBasinResult extends BasinElements {
   readonly rows: readonly FamilyScreening[];
 }
 
-const fmt = (x: number, digits = 3) => Number(x.toPrecision(digits)).toString();
 
 /** Broadcasts lists of length 1 to `n` flows; null when a length does not match. */
 function flowsOf(input: StillingBasinInput, say: Say): SolverResult<{ flows: ToeFlow[]; tailwater: number[]; discharges: number[] | null }> {

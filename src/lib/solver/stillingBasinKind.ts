@@ -98,7 +98,7 @@ function velocities(v: InputValues, y1: readonly number[]): SolverResult<readonl
 }
 
 /** Runs the kind on validated values. */
-export function runStillingBasin(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
+export function runStillingBasin(v: InputValues, context: SolveContext): SolverResult<SolveOutput> {
   const tailwater = v['tailwater'] as readonly number[] | undefined;
   if (tailwater === undefined) {
     return fail('missing-input', 'A basin is screened against the tailwater it will have: give TW (one depth above the apron, a list with one per flow, or a tailwater block\'s check.TW).', 'tailwater');

@@ -46,7 +46,7 @@ export const SURGE_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runSurge(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
+export function runSurge(v: InputValues, context: SolveContext): SolverResult<SolveOutput> {
   const input: SurgeInput = {
     shape: v['shape'] as SurgeInput['shape'],
     depth: v['depth'] as number,

@@ -116,7 +116,7 @@ export function ratingDepths(rating: RatingInput, apronLevel: number | undefined
 const formatLevel = (x: number) => (Math.round(x * 1000) / 1000).toString();
 
 /** Runs the kind on validated values. */
-export function runTailwaterCheck(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
+export function runTailwaterCheck(v: InputValues, context: SolveContext): SolverResult<SolveOutput> {
   let discharges = v['discharges'] as readonly number[] | undefined;
   if (discharges === undefined) {
     const min = v['dischargeMin'] as number;

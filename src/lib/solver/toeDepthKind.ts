@@ -38,7 +38,7 @@ export const TOE_DEPTH_SPEC: KindSpec = {
 };
 
 /** Runs the kind on validated values. */
-export function runToeDepth(v: InputValues, context: SolveContext = { unitSystem: 'SI' }): SolverResult<SolveOutput> {
+export function runToeDepth(v: InputValues, context: SolveContext): SolverResult<SolveOutput> {
   const discharge = dischargeFromValues(v);
   const r = solveToeDepth({ section: sectionFromValues(v), discharge, head: v['head'] as number, lossCoefficient: v['lossCoefficient'] as number, g: v['g'] as number, unitSystem: context.unitSystem });
   return r.ok ? { ok: true, value: { kind: TOE_DEPTH_SPEC.kind, values: { discharge, ...r.value } }, warnings: r.warnings } : r;
