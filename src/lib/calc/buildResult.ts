@@ -79,7 +79,10 @@ export function buildResult(p: ResultParts): BlockResult {
       inputs.push(show({ ...f, quantity: 'text' }, `file ${source}, ${rows} rows`, system));
     }
   }
-  const outputs = spec.outputs.filter((o) => !(o.omitWhenNull && (solved.values[o.name] ?? null) === null)).map((o) => show(o, solved.values[o.name] ?? null, system));
+  const outputs = spec.outputs.flatMap((o) => {
+    const si = solved.values[o.name] ?? null;
+    return o.omitWhenNull && si === null ? [] : [show(o, si, system)];
+  });
   const warnings: BlockWarning[] = p.warnings.map((w) => {
     const line = w.field !== undefined ? resolved.lineOf[w.field] : undefined;
     return line === undefined ? { code: w.code, message: w.message } : { code: w.code, message: w.message, line };

@@ -116,10 +116,9 @@ export function evaluateCase(markdown: string, files: BlockFiles = NO_FILES): Ca
       const names = (v: { name: string; symbol: string }) => v.name === output || v.symbol === output || v.name.toLowerCase() === output.toLowerCase();
       // An output, then an input (as written, so `check.y1` stays the y1 a block was given),
       // then a column of the results table as a list (`check.TW`).
-      const scalar = result.outputs.find(names) ?? result.inputs.find(names);
-      const columnAt = scalar ? -1 : (result.table?.columns.findIndex(names) ?? -1);
+      const found = result.outputs.find(names) ?? result.inputs.find(names);
+      const columnAt = found ? -1 : (result.table?.columns.findIndex(names) ?? -1);
       if (columnAt >= 0) return tableColumn(blockName, output, result, columnAt);
-      const found = scalar;
       if (!found || found.si === null) {
         const names = [...result.outputs, ...(result.table?.columns ?? [])].map((o) => o.symbol).filter((x, i, all) => all.indexOf(x) === i);
         const guess = closest(output, [...names, ...result.outputs.map((o) => o.name)]);

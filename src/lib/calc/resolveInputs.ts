@@ -10,9 +10,9 @@ import type { Assignment, LineIssue, NumberLiteral, ValueNode } from './syntax';
 /** The most values a list or range may expand to. */
 export const MAX_LIST_LENGTH = 2000;
 
-/** A value looked up from another block: an SI number, list or text, with its quantity ('list' when unknown). */
+/** A value looked up from another block: an SI number, list or text, with its quantity. */
 export type ReferenceValue =
-  | { ok: true; value: number | string | readonly number[]; quantity: Quantity | 'list' }
+  | { ok: true; value: number | string | readonly number[]; quantity: Quantity }
   | { ok: false; message: string; hint?: string };
 
 /** Looks up `block.output` for a reference. */
@@ -106,7 +106,7 @@ function convert(field: InputFieldSpec, value: ValueNode, system: UnitSystem, lo
     if (!found.ok) return found;
     if (field.type === 'list' && typeof found.value === 'number' && found.quantity === field.quantity) return { ok: true, value: [found.value] };
     if (field.type === 'list' && Array.isArray(found.value)) {
-      if (found.quantity !== 'list' && found.quantity !== field.quantity) return { ok: false, message: `${value.block}.${value.output} is a list of ${found.quantity} values, but ${field.label} is a ${field.quantity}.` };
+      if (found.quantity !== field.quantity) return { ok: false, message: `${value.block}.${value.output} is a list of ${found.quantity} values, but ${field.label} is a ${field.quantity}.` };
       return { ok: true, value: found.value };
     }
     if (field.type === 'choice' && typeof found.value === 'string') return convert(field, { type: 'word', value: found.value }, system, lookup, files);
