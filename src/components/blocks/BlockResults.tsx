@@ -6,6 +6,7 @@
  */
 import { useId, type ReactNode } from 'react';
 import type { BlockResult, ShownColumn, ShownValue } from '../../lib/calc';
+import { getKindSpec } from '../../lib/solver';
 import { NOTE_COLUMNS, WORD_COLUMNS } from './cellWords';
 import { RowNotes } from './RowNotes';
 import { displayNumber, SymbolText } from './typeset';
@@ -98,11 +99,13 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
   // Long text columns (a basin family's range and relations) go under the table as notes.
   const columns = table.columns.flatMap((c, k) => (NOTE_COLUMNS.has(c.name) ? [] : [{ c, k }]));
   const wraps = columns.some(({ c }) => c.quantity === 'text' && !WORD_COLUMNS[c.name]);
+  // The kind's own name for its rows: Flows, Basin families.
+  const label = getKindSpec(block.kind)?.table?.label ?? 'Rows';
   return (
     <div>
       <div className="overflow-x-auto">
         <table className="sheet-table tabular-nums">
-          <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`${block.kind === 'stilling-basin' ? 'Basin families' : 'Flows'} (${table.rows.length})`}</caption>
+          <caption className="mb-1 text-left text-sm font-semibold text-ink-soft">{`${label} (${table.rows.length})`}</caption>
           <thead>
             <tr>
               {columns.map(({ c }) => (
@@ -135,7 +138,7 @@ function RowsTable({ block, maxRows }: { block: BlockResult; maxRows: number }) 
         </table>
       </div>
       {table.rows.length > shown.length && (
-        <p className="mt-1 text-sm text-ink-soft">{`The first ${shown.length} of ${table.rows.length} ${block.kind === 'stilling-basin' ? 'families' : 'flows'} are shown.`}</p>
+        <p className="mt-1 text-sm text-ink-soft">{`The first ${shown.length} of ${table.rows.length} ${label.toLowerCase()} are shown.`}</p>
       )}
       <RowNotes block={block} />
     </div>

@@ -74,12 +74,13 @@ export function whatIfPlan(block: BlockResult, source: string): WhatIfPlan {
     if (!field || !value) continue;
     const offset = a.line - raw.line;
     const reference = a.value.type === 'reference';
-    // A list of one value written as a number (a basin's `TW = 4.2 m`) is changed like a number.
-    const single = field.type === 'list' && Array.isArray(value.si) && value.si.length === 1 && a.value.type === 'number' ? (value.si[0] as number) : undefined;
-    if (single !== undefined) {
-      fields.push({ name: field.name, key: a.key, label: field.label, symbol: field.symbol, latex: field.latex, quantity: field.quantity, offset, initial: value.text, unit: value.unit, si: single, reference });
-    } else if (field.type === 'number' && typeof value.si === 'number' && (a.value.type === 'number' || reference)) {
-      fields.push({ name: field.name, key: a.key, label: field.label, symbol: field.symbol, latex: field.latex, quantity: field.quantity, offset, initial: value.text, unit: value.unit, si: value.si, reference });
+    // A number, or a list of one value written as a number (a basin's `TW = 4.2 m`), is changed like a number.
+    const si =
+      field.type === 'number' && typeof value.si === 'number' && (a.value.type === 'number' || reference) ? value.si
+      : field.type === 'list' && Array.isArray(value.si) && value.si.length === 1 && a.value.type === 'number' ? (value.si[0] as number)
+      : undefined;
+    if (si !== undefined) {
+      fields.push({ name: field.name, key: a.key, label: field.label, symbol: field.symbol, latex: field.latex, quantity: field.quantity, offset, initial: value.text, unit: value.unit, si, reference });
     } else if (reference) {
       substitutions.push({ offset, key: a.key, value });
     }
